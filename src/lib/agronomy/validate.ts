@@ -6,7 +6,7 @@ function describe(value: unknown): string {
 	if (value instanceof Date) return Number.isNaN(value.getTime()) ? 'an invalid date' : value.toISOString();
 	if (value === undefined) return 'nothing';
 	if (value === null) return 'null';
-	if (Array.isArray(value)) return 'a list';
+	if (Array.isArray(value)) return value.length === 0 ? 'an empty list' : `a list of ${value.length}`;
 	return typeof value;
 }
 
