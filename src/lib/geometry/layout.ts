@@ -1,0 +1,223 @@
+import type { MultiPolygon, Polygon, Position } from 'geojson';
+import { geodesicAcres } from './area';
+import { erodeShape, intersectShapes, shapeArea, subtractShapes, unionShapes, type PlaneShape } from './clip';
+import { findCrossing } from './crossings';
+import { GeometryError } from './errors';
+import { laneWidthFt, openMiddleIn, patternEdgesFt } from './pattern';
+import { guidanceFrame, localProjection, type XY } from './projection';
+import { summariseByCrop, countBorderRows } from './totals';
+import type { Lane, Layout, LayoutInput } from './types';
+import { feetToMeters, metersToFeet, SQ_FEET_PER_ACRE } from './units';
+import { MAX_FIELD_ACRES, validateLayoutInput } from './validate';
+
+/** Lane pieces smaller than this are clipping dust along the boundary, not ground to plant: dropped. */
+const SLIVER_M2 = 0.09290304; // 1 sq ft
+/** A and B closer than this give no usable direction. */
+const MIN_AB_M = 1;
+/** A and B must lie within this distance of the field's outline box (keeps the local plane accurate). */
+const MAX_AB_DISTANCE_M = 5_000;
+
+type Polygonal = Polygon | MultiPolygon;
+
+function polygonsOf(g: Polygonal): Position[][][] {
+	return g.type === 'Polygon' ? [g.coordinates] : g.coordinates;
+}
+
+/** Drops repeated consecutive positions (still closed), without touching the input. */
+function withoutRepeats(ring: Position[]): Position[] {
+	const out: Position[] = [ring[0]];
+	for (let i = 1; i < ring.length; i++) {
+		const p = ring[i];
+		const q = out[out.length - 1];
+		if (p[0] !== q[0] || p[1] !== q[1]) out.push(p);
+	}
+	return out;
+}
+
+function mapShape(shape: PlaneShape, f: (p: XY) => XY): PlaneShape {
+	return shape.map((rings) => rings.map((ring) => ring.map((p) => f(p as XY))));
+}
+
+function toGeometry(shape: Position[][][]): Polygonal {
+	return shape.length === 1 ? { type: 'Polygon', coordinates: shape[0] } : { type: 'MultiPolygon', coordinates: shape };
+}
+
+function bboxOf(shape: PlaneShape): [number, number, number, number] {
+	let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+	for (const rings of shape) for (const p of rings[0] ?? []) {
+		if (p[0] < minX) minX = p[0];
+		if (p[0] > maxX) maxX = p[0];
+		if (p[1] < minY) minY = p[1];
+		if (p[1] > maxY) maxY = p[1];
+	}
+	return [minX, minY, maxX, maxY];
+}
+
+/** Projects a polygonal geometry into the plane and refuses it if any ring crosses itself or another. */
+function toPlane(g: Polygonal, forward: (p: Position) => XY, inverse: (p: XY) => [number, number], what: string): PlaneShape {
+	return polygonsOf(g).map((rings) => {
+		const plane = rings.map((ring) => withoutRepeats(ring).map(forward));
+		for (const ring of plane) {
+			if (ring.length < 4) {
+				throw new GeometryError('too-few-positions', `The ${what} has a ring with fewer than 3 distinct corners.`);
+			}
+		}
+		const hit = findCrossing(plane);
+		if (hit) {
+			const [lng, lat] = inverse(hit);
+			throw new GeometryError(
+				'self-intersection',
+				`The ${what} crosses itself near longitude ${lng.toFixed(6)}, latitude ${lat.toFixed(6)}; redraw the outline there.`,
+				[lng, lat]
+			);
+		}
+		return plane;
+	});
+}
+
+/**
+ * Lays a repeating pattern of lanes parallel to the A-B line over a field and clips it to the
+ * planted area = boundary − exclusions − headland. The headland is an inside band of `headlandFt`
+ * along every edge of the boundary, its holes included (turns are made there too); exclusions get
+ * no headland of their own. Where an exclusion overlaps the headland band, that ground counts as
+ * excluded. Geometry is computed in a transverse Mercator plane centred on the field, where
+ * straight parallel lines are true ground offsets; areas are ellipsoidal.
+ *
+ * @param input boundary, exclusions, A-B line, pattern, offset and headland
+ * @returns lanes left to right (looking from A to B) and field totals
+ * @throws GeometryError for every input that cannot be laid out
+ * @example
+ * layoutStrips({ boundary, guidance: { a, b }, pattern: [
+ *   { kind: 'crop', crop: 'corn', rows: 8, rowSpacingIn: 30 },
+ *   { kind: 'crop', crop: 'soybean', rows: 8, rowSpacingIn: 30 } ] })
+ */
+export function layoutStrips(input: LayoutInput): Layout {
+	validateLayoutInput(input);
+	const fieldAcres = geodesicAcres(input.boundary);
+	if (fieldAcres > MAX_FIELD_ACRES) {
+		throw new GeometryError('field-too-large', `The field outline covers ${Math.round(fieldAcres).toLocaleString('en-US')} acres; fields are limited to ${MAX_FIELD_ACRES.toLocaleString('en-US')} acres. Check the outline or split the field.`);
+	}
+
+	// Plane centred on the middle of the boundary's extent.
+	let minLng = Infinity, maxLng = -Infinity, minLat = Infinity, maxLat = -Infinity;
+	for (const rings of polygonsOf(input.boundary)) for (const [lng, lat] of rings[0]) {
+		minLng = Math.min(minLng, lng); maxLng = Math.max(maxLng, lng);
+		minLat = Math.min(minLat, lat); maxLat = Math.max(maxLat, lat);
+	}
+	const proj = localProjection((minLng + maxLng) / 2, (minLat + maxLat) / 2);
+	const field = toPlane(input.boundary, proj.forward, proj.inverse, 'field boundary');
+	const exclusionParts = (input.exclusions ?? []).map((ex, i) => toPlane(ex, proj.forward, proj.inverse, `exclusion ${i + 1}`));
+
+	const a = proj.forward(input.guidance.a);
+	const b = proj.forward(input.guidance.b);
+	if (Math.hypot(b[0] - a[0], b[1] - a[1]) < MIN_AB_M) {
+		throw new GeometryError('ab-same-point', 'Points A and B of the A-B line are the same point; set B at least a few feet from A along the rows.');
+	}
+	const [fx0, fy0, fx1, fy1] = bboxOf(field);
+	for (const [name, p] of [['A', a], ['B', b]] as const) {
+		const dx = Math.max(fx0 - p[0], 0, p[0] - fx1);
+		const dy = Math.max(fy0 - p[1], 0, p[1] - fy1);
+		if (Math.hypot(dx, dy) > MAX_AB_DISTANCE_M) {
+			throw new GeometryError('ab-far-from-field', `Point ${name} of the A-B line is ${(Math.hypot(dx, dy) / 1609.344).toFixed(1)} miles from the field; it must lie within ${(MAX_AB_DISTANCE_M / 1609.344).toFixed(1)} miles. Check that the A-B line belongs to this field.`);
+		}
+	}
+
+	const fieldClean = unionShapes([field]);
+	const excluded = exclusionParts.length > 0 ? intersectShapes(fieldClean, unionShapes(exclusionParts)) : [];
+	const inner = erodeShape(fieldClean, feetToMeters(input.headlandFt ?? 0));
+	const planted = subtractShapes(inner, [excluded]);
+	if (shapeArea(planted) < SLIVER_M2) {
+		if (excluded.length > 0 && shapeArea(subtractShapes(fieldClean, [excluded])) < SLIVER_M2) {
+			throw new GeometryError('nothing-to-plant', 'The exclusions cover the whole field; nothing is left to plant.');
+		}
+		throw new GeometryError('nothing-to-plant', `Nothing is left to plant inside a ${input.headlandFt ?? 0}-ft headland; make the headland narrower.`);
+	}
+	const headland = subtractShapes(fieldClean, [inner, excluded]);
+
+	const unproject = (shape: PlaneShape) => toGeometry(mapShape(shape, proj.inverse));
+	const excludedAcres = excluded.length ? geodesicAcres(unproject(excluded)) : 0;
+	const headlandAcres = headland.length ? geodesicAcres(unproject(headland)) : 0;
+	const plantedAcres = geodesicAcres(unproject(planted));
+
+	const lanes = cutLanes(input, planted, a, b, proj.inverse);
+	return { lanes, fieldAcres, plantedAcres, headlandAcres, excludedAcres, byCrop: summariseByCrop(lanes) };
+}
+
+/**
+ * Cuts the planted area into lanes. Lane bands are intersected in two batches (even and odd slots),
+ * which never touch within a batch, so every output piece belongs to exactly one slot.
+ */
+function cutLanes(input: LayoutInput, planted: PlaneShape, a: XY, b: XY, inverse: (p: XY) => [number, number]): Lane[] {
+	const frame = guidanceFrame(a, b);
+	const plantedST = mapShape(planted, frame.toST);
+	const [s0, t0, s1, t1] = bboxOf(plantedST);
+	const { starts, widths, repeatFt } = patternEdgesFt(input.pattern);
+	const offsetFt = input.offsetFt ?? 0;
+	const firstRepeat = Math.floor((metersToFeet(s0) - offsetFt) / repeatFt) - 1;
+	const lastRepeat = Math.ceil((metersToFeet(s1) - offsetFt) / repeatFt) + 1;
+
+	interface Slot { patternIndex: number; leftFt: number; rightFt: number; pieces: PlaneShape }
+	const slots: Slot[] = [];
+	for (let r = firstRepeat; r <= lastRepeat; r++) {
+		for (let j = 0; j < starts.length; j++) {
+			const leftFt = offsetFt + r * repeatFt + starts[j];
+			const rightFt = leftFt + widths[j];
+			if (feetToMeters(rightFt) <= s0 || feetToMeters(leftFt) >= s1) continue;
+			slots.push({ patternIndex: j, leftFt, rightFt, pieces: [] });
+		}
+	}
+	const tLo = t0 - 1, tHi = t1 + 1;
+	const rightEdgesM = slots.map((s) => feetToMeters(s.rightFt));
+	for (const parity of [0, 1]) {
+		const bands: PlaneShape = [];
+		for (let k = parity; k < slots.length; k += 2) {
+			const l = feetToMeters(slots[k].leftFt);
+			const r = rightEdgesM[k];
+			bands.push([[[l, tLo], [r, tLo], [r, tHi], [l, tHi], [l, tLo]]]);
+		}
+		for (const piece of intersectShapes(plantedST, bands)) {
+			let lo = Infinity, hi = -Infinity;
+			for (const p of piece[0]) { if (p[0] < lo) lo = p[0]; if (p[0] > hi) hi = p[0]; }
+			const k = slotAt(rightEdgesM, (lo + hi) / 2);
+			if (shapeArea([piece]) >= SLIVER_M2) slots[k].pieces.push(piece);
+		}
+	}
+
+	const kept = slots.filter((s) => s.pieces.length > 0);
+	const lanes: Lane[] = kept.map((slot, index) => {
+		const spec = input.pattern[slot.patternIndex];
+		const widthFt = laneWidthFt(spec);
+		const geometry = toGeometry(mapShape(slot.pieces, (p) => inverse(frame.fromST(p))));
+		const acres = geodesicAcres(geometry);
+		const rows = spec.rows ?? 0;
+		const lane: Lane = {
+			index,
+			patternIndex: slot.patternIndex,
+			kind: spec.kind,
+			crop: spec.crop,
+			widthFt,
+			rows,
+			offsetFt: slot.leftFt,
+			geometry,
+			acres,
+			rowFeet: (rows * acres * SQ_FEET_PER_ACRE) / widthFt,
+			borderRows: 0
+		};
+		const middle = openMiddleIn(spec);
+		if (middle !== undefined) lane.openMiddleIn = middle;
+		return lane;
+	});
+	countBorderRows(lanes, kept.map((s) => slots.indexOf(s)));
+	return lanes;
+}
+
+/** Index of the slot whose band contains s (bands are contiguous and sorted by their right edges). */
+function slotAt(rightEdges: number[], s: number): number {
+	let lo = 0, hi = rightEdges.length - 1;
+	while (lo < hi) {
+		const mid = (lo + hi) >> 1;
+		if (rightEdges[mid] < s) lo = mid + 1;
+		else hi = mid;
+	}
+	return lo;
+}
