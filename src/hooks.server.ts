@@ -1,0 +1,40 @@
+import type { Handle, HandleServerError } from '@sveltejs/kit';
+import { sequence } from '@sveltejs/kit/hooks';
+import { randomUUID } from 'node:crypto';
+import { clearSessionCookie, lucia, setSessionCookie } from '$lib/server/auth';
+
+const handleSession: Handle = async ({ event, resolve }) => {
+	const sessionId = event.cookies.get(lucia.sessionCookieName);
+	event.locals.user = null;
+	event.locals.session = null;
+	if (sessionId) {
+		const secure = event.url.protocol === 'https:';
+		const { session, user } = await lucia.validateSession(sessionId);
+		if (session && user) {
+			// Sliding expiry: Lucia marks the session fresh when it extended it.
+			if (session.fresh) setSessionCookie(event.cookies, session, secure);
+			event.locals.user = { id: user.id, email: user.email, name: user.name };
+			event.locals.session = session;
+		} else {
+			clearSessionCookie(event.cookies, secure);
+		}
+	}
+	return resolve(event);
+};
+
+const handleHeaders: Handle = async ({ event, resolve }) => {
+	const response = await resolve(event);
+	response.headers.set('x-content-type-options', 'nosniff');
+	response.headers.set('referrer-policy', 'same-origin');
+	response.headers.set('x-frame-options', 'DENY');
+	return response;
+};
+
+export const handle = sequence(handleSession, handleHeaders);
+
+export const handleError: HandleServerError = ({ error, event, status, message }) => {
+	if (status === 404) return { message: 'This page does not exist.', code: 'not_found' };
+	const errorId = randomUUID();
+	console.error(`[${errorId}] ${event.request.method} ${event.url.pathname}`, error);
+	return { message: `Something went wrong on our side. Nothing was saved. (error id ${errorId})`, code: 'internal', errorId, ...(status < 500 ? { message } : {}) };
+};

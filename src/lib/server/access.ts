@@ -1,0 +1,69 @@
+// The one gate to a farm's data. Every load, action and API route calls these before reading rows.
+import { error, redirect, type RequestEvent } from '@sveltejs/kit';
+import { db } from './db';
+import { can, CAPABILITY_LABELS, ROLE_LABELS, type Capability, type Role } from '../permissions';
+import type { SessionUser } from './auth';
+
+export interface FarmAccess {
+	user: SessionUser;
+	farm: { id: string; name: string; units: 'us' | 'metric' };
+	role: Role;
+	/** Field ids a viewer may read; null = every field of the farm. */
+	fieldScope: string[] | null;
+	can: (capability: Capability) => boolean;
+}
+
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+export function isUuid(value: string | undefined | null): value is string {
+	return typeof value === 'string' && UUID.test(value);
+}
+
+type Event = Pick<RequestEvent, 'locals' | 'url' | 'request'>;
+
+/** The signed-in user; pages redirect to sign-in, everything else gets 401. */
+export function requireUser(event: Event): SessionUser {
+	const user = event.locals.user;
+	if (user) return user;
+	const isPageRead = event.request.method === 'GET' && !event.url.pathname.startsWith('/api/');
+	if (isPageRead) {
+		redirect(303, `/sign-in?redirectTo=${encodeURIComponent(event.url.pathname + event.url.search)}`);
+	}
+	error(401, { message: 'Sign in first: your session has ended or you are not signed in.', code: 'unauthenticated' });
+}
+
+export const FARM_NOT_FOUND = 'No farm here: it does not exist, was deleted, or you are not a member.';
+
+/**
+ * The signed-in user's membership of the farm, refused unless the role holds the capability.
+ * Another farm's id answers exactly like a missing one (404), so ids reveal nothing.
+ */
+export async function requireMember(event: Event, farmId: string | undefined, capability: Capability = 'read'): Promise<FarmAccess> {
+	const user = requireUser(event);
+	if (!isUuid(farmId)) error(404, { message: FARM_NOT_FOUND, code: 'not_found' });
+	const row = await db()('memberships as m')
+		.join('farms as f', 'f.id', 'm.farm_id')
+		.where({ 'm.farm_id': farmId, 'm.user_id': user.id })
+		.whereNull('f.deleted_at')
+		.first('f.id', 'f.name', 'f.units', 'm.role', 'm.field_scope');
+	if (!row) error(404, { message: FARM_NOT_FOUND, code: 'not_found' });
+	const role = row.role as Role;
+	if (!can(role, capability)) {
+		error(403, {
+			message: `Your role on ${row.name} is ${ROLE_LABELS[role]}, which cannot ${CAPABILITY_LABELS[capability]}. Ask the farm's owner if you need it.`,
+			code: 'forbidden'
+		});
+	}
+	return {
+		user,
+		farm: { id: row.id, name: row.name, units: row.units },
+		role,
+		fieldScope: role === 'viewer' ? (row.field_scope ?? []) : null,
+		can: (c) => can(role, c)
+	};
+}
+
+/** Whether this member may see the field (viewers: only the fields granted to them). */
+export function canSeeField(access: FarmAccess, fieldId: string): boolean {
+	return access.fieldScope === null || access.fieldScope.includes(fieldId);
+}

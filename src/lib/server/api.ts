@@ -1,0 +1,75 @@
+// JSON API plumbing: one error shape everywhere, { error: { code, message, fields? } }.
+import { isHttpError, isRedirect, json, type RequestEvent, type RequestHandler } from '@sveltejs/kit';
+import { ZodError, type ZodType } from 'zod';
+import { randomUUID } from 'node:crypto';
+
+const CODES: Record<number, string> = {
+	400: 'bad_request',
+	401: 'unauthenticated',
+	403: 'forbidden',
+	404: 'not_found',
+	409: 'version_conflict',
+	413: 'too_large',
+	429: 'too_many_requests'
+};
+
+export class ApiError extends Error {
+	constructor(
+		readonly status: number,
+		message: string,
+		readonly code = CODES[status] ?? 'error',
+		readonly fields?: Record<string, string[]>,
+		readonly headers?: Record<string, string>
+	) {
+		super(message);
+	}
+}
+
+export function apiError(status: number, code: string, message: string, fields?: Record<string, string[]>, headers?: Record<string, string>) {
+	return json({ error: fields ? { code, message, fields } : { code, message } }, { status, headers });
+}
+
+/** Field errors keyed by dotted path, from a zod error. */
+export function zodFields(e: ZodError): Record<string, string[]> {
+	const fields: Record<string, string[]> = {};
+	for (const issue of e.issues) {
+		const key = issue.path.length ? issue.path.join('.') : '_';
+		(fields[key] ??= []).push(issue.message);
+	}
+	return fields;
+}
+
+/** Reads and validates a JSON body; bad JSON or bad shape becomes a 400 with field errors. */
+export async function readJson<T>(event: RequestEvent, schema: ZodType<T>): Promise<T> {
+	let body: unknown;
+	try {
+		body = await event.request.json();
+	} catch {
+		throw new ApiError(400, 'The request body is not valid JSON.', 'bad_json');
+	}
+	const parsed = schema.safeParse(body);
+	if (!parsed.success) {
+		throw new ApiError(400, 'Some values are missing or not valid; see fields.', 'invalid', zodFields(parsed.error));
+	}
+	return parsed.data;
+}
+
+/** Wraps a JSON handler so every failure answers in the one error shape, never a stack trace. */
+export function api(handler: RequestHandler): RequestHandler {
+	return async (event) => {
+		try {
+			return await handler(event);
+		} catch (e) {
+			if (e instanceof ApiError) return apiError(e.status, e.code, e.message, e.fields, e.headers);
+			if (isHttpError(e)) {
+				const body = e.body as App.Error;
+				return apiError(e.status, body.code ?? CODES[e.status] ?? 'error', body.message);
+			}
+			if (isRedirect(e)) throw e;
+			if (e instanceof ZodError) return apiError(400, 'invalid', 'Some values are not valid; see fields.', zodFields(e));
+			const errorId = randomUUID();
+			console.error(`[${errorId}] ${event.request.method} ${event.url.pathname}`, e);
+			return apiError(500, 'internal', `Something went wrong on our side (error id ${errorId}). Nothing was saved.`);
+		}
+	};
+}

@@ -1,0 +1,45 @@
+import { db } from './db';
+import { recordAudit } from './audit';
+import type { Role } from '../permissions';
+
+export interface FarmSummary {
+	id: string;
+	name: string;
+	role: Role;
+}
+
+export async function createFarm(userId: string, name: string): Promise<FarmSummary> {
+	return db().transaction(async (trx) => {
+		const [farm] = await trx('farms').insert({ name: name.trim() }).returning(['id', 'name']);
+		await trx('memberships').insert({ farm_id: farm.id, user_id: userId, role: 'owner' });
+		await recordAudit(trx, { farmId: farm.id, userId, entity: 'farm', entityId: farm.id, action: 'create', after: { name: farm.name } });
+		return { id: farm.id, name: farm.name, role: 'owner' as const };
+	});
+}
+
+/** The farms a user belongs to, with the user's role on each. */
+export async function listFarmsForUser(userId: string): Promise<FarmSummary[]> {
+	return db()('memberships as m')
+		.join('farms as f', 'f.id', 'm.farm_id')
+		.where('m.user_id', userId)
+		.whereNull('f.deleted_at')
+		.orderBy('f.name')
+		.select('f.id', 'f.name', 'm.role');
+}
+
+export async function renameFarm(farmId: string, userId: string, name: string) {
+	await db().transaction(async (trx) => {
+		const before = await trx('farms').where({ id: farmId }).first('name');
+		await trx('farms').where({ id: farmId }).update({ name: name.trim(), updated_at: trx.fn.now() });
+		await recordAudit(trx, { farmId, userId, entity: 'farm', entityId: farmId, action: 'rename', before, after: { name } });
+	});
+}
+
+/** Soft delete: the farm disappears for everyone; rows stay for the audit trail. */
+export async function deleteFarm(farmId: string, userId: string) {
+	await db().transaction(async (trx) => {
+		await trx('farms').where({ id: farmId }).update({ deleted_at: trx.fn.now() });
+		await trx('invitations').where({ farm_id: farmId }).whereNull('accepted_at').update({ revoked_at: trx.fn.now() });
+		await recordAudit(trx, { farmId, userId, entity: 'farm', entityId: farmId, action: 'delete' });
+	});
+}

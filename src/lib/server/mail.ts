@@ -1,0 +1,36 @@
+import nodemailer, { type Transporter } from 'nodemailer';
+
+let transport: Transporter | undefined;
+
+function transporter(): Transporter {
+	const url = process.env.SMTP_URL;
+	if (!url) throw new Error('SMTP_URL is not set: e-mail cannot be sent (see README.md).');
+	transport ??= nodemailer.createTransport(url);
+	return transport;
+}
+
+export function mailFrom(): string {
+	return process.env.MAIL_FROM ?? 'Stripwright <no-reply@stripwright.test>';
+}
+
+export interface OutgoingMail {
+	to: string;
+	subject: string;
+	text: string;
+	attachments?: { filename: string; content: Buffer; contentType: string }[];
+}
+
+export async function sendMail(mail: OutgoingMail) {
+	await transporter().sendMail({ from: mailFrom(), ...mail });
+}
+
+/** The dev mailbox exists only when mail goes to the local stand-in. */
+export function mailboxUrl(): string | null {
+	const url = process.env.MAILBOX_URL;
+	return url && /^http:\/\/(127\.0\.0\.1|localhost)(:\d+)?$/.test(url) ? url : null;
+}
+
+/** The public address of the app, for links in e-mails. */
+export function appOrigin(fallback: string): string {
+	return process.env.ORIGIN ?? fallback;
+}

@@ -1,0 +1,46 @@
+import { db } from './db';
+import { hashPassword } from './password';
+import type { SessionUser } from './auth';
+
+export interface UserWithHash extends SessionUser {
+	passwordHash: string;
+}
+
+export class DuplicateEmailError extends Error {
+	constructor() {
+		super('An account with this e-mail already exists. Sign in, or reset your password.');
+	}
+}
+
+export function normalizeEmail(email: string): string {
+	return email.trim().toLowerCase();
+}
+
+export async function getUserFromEmail(email: string): Promise<UserWithHash | null> {
+	const row = await db()('users').whereRaw('lower(email) = ?', [normalizeEmail(email)]).first();
+	return row ? { id: row.id, email: row.email, name: row.name, passwordHash: row.password_hash } : null;
+}
+
+export async function getUser(id: string): Promise<SessionUser | null> {
+	const row = await db()('users').where({ id }).first('id', 'email', 'name');
+	return row ?? null;
+}
+
+export async function createUser(input: { email: string; name: string; password: string }): Promise<SessionUser> {
+	const passwordHash = await hashPassword(input.password);
+	try {
+		const [row] = await db()('users')
+			.insert({ email: normalizeEmail(input.email), name: input.name.trim(), password_hash: passwordHash })
+			.returning(['id', 'email', 'name']);
+		return row;
+	} catch (e) {
+		if ((e as { code?: string }).code === '23505') throw new DuplicateEmailError();
+		throw e;
+	}
+}
+
+export async function setUserPassword(userId: string, password: string, trx = db()) {
+	await trx('users')
+		.where({ id: userId })
+		.update({ password_hash: await hashPassword(password), updated_at: trx.fn.now() });
+}
