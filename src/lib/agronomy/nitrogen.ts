@@ -11,7 +11,7 @@ function checkProduct(poundsPerGallon: number, percentN: number): { density: num
 /**
  * Pounds of nitrogen in one gallon of a liquid product: lb/gal × %N ÷ 100.
  *
- * Source: REFERENCES §3 — Univ. of Nebraska, PASSEL "Nitrogen Fertilizers" (anhydrous 82 %,
+ * Sources: Univ. of Nebraska, PASSEL "Nitrogen Fertilizers" (anhydrous 82 %,
  * 5.15 lb/gal → 4.22 lb N/gal); J. Camberato, Purdue Extension (2023) (UAN 28 %, 10.6 lb/gal →
  * 2.97 lb N/gal). The product label or SDS governs density.
  */

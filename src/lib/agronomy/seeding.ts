@@ -86,7 +86,7 @@ export function twinRowSeedSpacingIn(pairCentresIn: number, seedsPerAcre: number
  * Seed units (bags) needed: acres × seeds/ac ÷ seeds per unit. Exact figure, not rounded up;
  * see {@link seedUnitEstimate} for whole units.
  *
- * Source: arithmetic [K] (REFERENCES §2: 80 ac × 34,000 ÷ 80,000 = 34.0 units).
+ * Source: arithmetic [K] (80 ac × 34,000 ÷ 80,000 = 34.0 units).
  */
 export function seedUnits(acres: number, seedsPerAcre: number, seedsPerUnit: number): number {
 	const area = requirePositive('acres', acres, 'ac');

@@ -77,13 +77,13 @@ describe('moistureShrinkPercent', () => {
 
 describe('yieldBushelsPerAcre', () => {
 	it('matches the worked corn strip', () => {
-		// [K] REFERENCES §4 (extension calibration guidance; Mulvaney & Devkota SS-AGR-443; Wisconsin standards):
+		// [K] extension strip calibration guidance, Mulvaney & Devkota UF/IFAS SS-AGR-443, Univ. of Wisconsin-Extension standards:
 		// 8 rows × 30 in × 1,000 ft, 5,000 lb at 20 % → 184.11 bu/ac at 15.5 %
 		expect(yieldBushelsPerAcre('corn', 5_000, 20, 20_000 / 43_560)).toBeCloseTo(184.11, 2);
 	});
 
 	it('raises grain drier than standard to standard moisture', () => {
-		// [K] REFERENCES §4: soybean 6 rows × 30 in × 800 ft, 1,000 lb at 11 % → 61.89 bu/ac at 13 %
+		// [K] same sources: soybean 6 rows × 30 in × 800 ft, 1,000 lb at 11 % → 61.89 bu/ac at 13 %
 		expect(yieldBushelsPerAcre('soybean', 1_000, 11, 12_000 / 43_560)).toBeCloseTo(61.89, 2);
 	});
 
@@ -114,7 +114,7 @@ describe('yieldBushelsPerAcre', () => {
 
 describe('stripYield', () => {
 	it('matches the worked corn strip', () => {
-		// [K] REFERENCES §4 (extension calibration guidance): 8 rows × 30 in × 1,000 ft = 0.4591 ac;
+		// [K] extension strip calibration guidance, Mulvaney & Devkota UF/IFAS SS-AGR-443: 8 rows × 30 in × 1,000 ft = 0.4591 ac;
 		// 5,000 lb at 20 % → 184.11 bu/ac; wet grain, so both figures agree
 		const result = stripYield(cornStrip);
 		expect(result.acres).toBeCloseTo(0.459137, 6);
@@ -123,7 +123,7 @@ describe('stripYield', () => {
 	});
 
 	it('matches the worked soybean strip, with and without raising dry grain', () => {
-		// [K] REFERENCES §4: 6 rows × 30 in × 800 ft = 0.2755 ac; 1,000 lb at 11 %
+		// [K] same sources: 6 rows × 30 in × 800 ft = 0.2755 ac; 1,000 lb at 11 %
 		// → 61.89 bu/ac raised to 13 %, 60.50 bu/ac left as weighed
 		const result = stripYield(soyStrip);
 		expect(result.acres).toBeCloseTo(0.275482, 6);

@@ -117,7 +117,7 @@ describe('grazingDays', () => {
 
 describe('stockingDensity', () => {
 	it('is animal units per acre', () => {
-		// [K] REFERENCES §8 definition: 4.5 AU (30 ewes × 150 lb) on 2 ac → 2.25 AU/ac
+		// [K] stocking density = AU per acre at one time (NCAT ATTRA, "Grazier's Math"): 4.5 AU (30 ewes × 150 lb) on 2 ac → 2.25 AU/ac
 		expect(stockingDensity(animalUnits('sheep', 30, 150), 2)).toBeCloseTo(2.25, 12);
 		expect(stockingDensity(0, 2)).toBe(0);
 	});

@@ -44,7 +44,7 @@ describe('poundsNitrogenPerAcre', () => {
 	it('matches the worked values', () => {
 		// J. Camberato, Purdue Extension (2023): 20 gal/ac of UAN 28 % at 10.6 lb/gal → 59.4 lb N/ac
 		expect(poundsNitrogenPerAcre(20, 10.6, 28)).toBeCloseTo(59.4, 1);
-		// [K] REFERENCES §3 formula with the [M] UAN 32 % density: 15 gal/ac at 11.06 lb/gal → 53.09 lb N/ac
+		// [K] lb N/ac = gal/ac × lb/gal × %N ÷ 100 (Camberato, Purdue Extension 2023) with the [M] UAN 32 % density: 15 gal/ac at 11.06 lb/gal → 53.09 lb N/ac
 		expect(poundsNitrogenPerAcre(15, 11.06, 32)).toBeCloseTo(53.09, 2);
 		// [K] no product, no nitrogen
 		expect(poundsNitrogenPerAcre(0, 11.06, 32)).toBe(0);

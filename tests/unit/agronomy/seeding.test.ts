@@ -107,7 +107,7 @@ describe('twinRowSeedSpacingIn', () => {
 
 describe('seedUnits', () => {
 	it('matches the worked value', () => {
-		// [K] REFERENCES §2: 80 ac × 34,000 ÷ 80,000 = 34.0 units
+		// [K] acres × seeds/ac ÷ seeds per unit: 80 ac × 34,000 ÷ 80,000 = 34.0 units
 		expect(seedUnits(80, 34_000, 80_000)).toBeCloseTo(34, 12);
 		// [K] 81 ac at 34,000 on 80,000-kernel units → 34.425 units, not rounded
 		expect(seedUnits(81, 34_000, 80_000)).toBeCloseTo(34.425, 12);
