@@ -44,6 +44,19 @@ export function ringSignedArea(ring: Position[]): number {
 	return sum / 2;
 }
 
+/**
+ * Copy of a shape with exterior rings counter-clockwise and holes clockwise (RFC 7946 order).
+ * @example orientShape(shape)[0][0] // counter-clockwise exterior
+ */
+export function orientShape(shape: PlaneShape): PlaneShape {
+	return shape.map((rings) =>
+		rings.map((ring, i) => {
+			const ccw = ringSignedArea(ring) > 0;
+			return ccw === (i === 0) ? ring : [...ring].reverse();
+		})
+	);
+}
+
 /** Planar area of a shape, holes subtracted, m². @example shapeArea([[[[0,0],[1,0],[1,1],[0,0]]]]) // 0.5 */
 export function shapeArea(shape: PlaneShape): number {
 	let total = 0;

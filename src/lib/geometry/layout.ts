@@ -1,9 +1,10 @@
 import type { MultiPolygon, Polygon, Position } from 'geojson';
 import { geodesicAcres } from './area';
-import { erodeShape, intersectShapes, shapeArea, subtractShapes, unionShapes, type PlaneShape } from './clip';
+import { erodeShape, intersectShapes, orientShape, shapeArea, subtractShapes, unionShapes, type PlaneShape } from './clip';
+import { clipToBand } from './slab';
 import { findCrossing } from './crossings';
 import { GeometryError } from './errors';
-import { laneWidthFt, openMiddleIn, patternEdgesFt } from './pattern';
+import { openMiddleIn, patternEdgesFt } from './pattern';
 import { guidanceFrame, localProjection, type XY } from './projection';
 import { summariseByCrop, countBorderRows } from './totals';
 import type { Lane, Layout, LayoutInput } from './types';
@@ -122,7 +123,8 @@ export function layoutStrips(input: LayoutInput): Layout {
 		}
 	}
 
-	const fieldClean = unionShapes([field]);
+	// One polygon was checked for crossings above; several parts may overlap each other and are merged.
+	const fieldClean = field.length > 1 ? unionShapes([field]) : orientShape(field);
 	const excluded = exclusionParts.length > 0 ? intersectShapes(fieldClean, unionShapes(exclusionParts)) : [];
 	const inner = erodeShape(fieldClean, feetToMeters(input.headlandFt ?? 0));
 	const planted = subtractShapes(inner, [excluded]);
@@ -144,49 +146,38 @@ export function layoutStrips(input: LayoutInput): Layout {
 }
 
 /**
- * Cuts the planted area into lanes. Lane bands are intersected in two batches (even and odd slots),
- * which never touch within a batch, so every output piece belongs to exactly one slot.
+ * Cuts the planted area into lanes: the area is turned into the A-B frame, where every lane is a
+ * band of constant s, and each band is clipped out directly. Neighbouring bands share one list of
+ * edge positions, so lanes meet exactly with no gap or overlap.
  */
 function cutLanes(input: LayoutInput, planted: PlaneShape, a: XY, b: XY, inverse: (p: XY) => [number, number]): Lane[] {
 	const frame = guidanceFrame(a, b);
-	const plantedST = mapShape(planted, frame.toST);
-	const [s0, t0, s1, t1] = bboxOf(plantedST);
+	const plantedST = orientShape(mapShape(planted, frame.toST));
+	const [s0, , s1] = bboxOf(plantedST);
 	const { starts, widths, repeatFt } = patternEdgesFt(input.pattern);
 	const offsetFt = input.offsetFt ?? 0;
 	const firstRepeat = Math.floor((metersToFeet(s0) - offsetFt) / repeatFt) - 1;
 	const lastRepeat = Math.ceil((metersToFeet(s1) - offsetFt) / repeatFt) + 1;
 
-	interface Slot { patternIndex: number; leftFt: number; rightFt: number; pieces: PlaneShape }
+	interface Slot { patternIndex: number; leftFt: number; leftM: number; rightM: number; pieces: PlaneShape }
 	const slots: Slot[] = [];
 	for (let r = firstRepeat; r <= lastRepeat; r++) {
 		for (let j = 0; j < starts.length; j++) {
 			const leftFt = offsetFt + r * repeatFt + starts[j];
-			const rightFt = leftFt + widths[j];
+			const rightFt = j + 1 < starts.length ? offsetFt + r * repeatFt + starts[j + 1] : offsetFt + (r + 1) * repeatFt;
 			if (feetToMeters(rightFt) <= s0 || feetToMeters(leftFt) >= s1) continue;
-			slots.push({ patternIndex: j, leftFt, rightFt, pieces: [] });
+			slots.push({ patternIndex: j, leftFt, leftM: feetToMeters(leftFt), rightM: feetToMeters(rightFt), pieces: [] });
 		}
 	}
-	const tLo = t0 - 1, tHi = t1 + 1;
-	const rightEdgesM = slots.map((s) => feetToMeters(s.rightFt));
-	for (const parity of [0, 1]) {
-		const bands: PlaneShape = [];
-		for (let k = parity; k < slots.length; k += 2) {
-			const l = feetToMeters(slots[k].leftFt);
-			const r = rightEdgesM[k];
-			bands.push([[[l, tLo], [r, tLo], [r, tHi], [l, tHi], [l, tLo]]]);
-		}
-		for (const piece of intersectShapes(plantedST, bands)) {
-			let lo = Infinity, hi = -Infinity;
-			for (const p of piece[0]) { if (p[0] < lo) lo = p[0]; if (p[0] > hi) hi = p[0]; }
-			const k = slotAt(rightEdgesM, (lo + hi) / 2);
-			if (shapeArea([piece]) >= SLIVER_M2) slots[k].pieces.push(piece);
-		}
+	for (const slot of slots) {
+		slot.pieces = clipToBand(plantedST, slot.leftM, slot.rightM).filter((piece) => shapeArea([piece]) >= SLIVER_M2);
 	}
 
-	const kept = slots.filter((s) => s.pieces.length > 0);
+	const keptSlots = slots.map((s, k) => k).filter((k) => slots[k].pieces.length > 0);
+	const kept = keptSlots.map((k) => slots[k]);
 	const lanes: Lane[] = kept.map((slot, index) => {
 		const spec = input.pattern[slot.patternIndex];
-		const widthFt = laneWidthFt(spec);
+		const widthFt = widths[slot.patternIndex];
 		const geometry = toGeometry(mapShape(slot.pieces, (p) => inverse(frame.fromST(p))));
 		const acres = geodesicAcres(geometry);
 		const rows = spec.rows ?? 0;
@@ -207,17 +198,7 @@ function cutLanes(input: LayoutInput, planted: PlaneShape, a: XY, b: XY, inverse
 		if (middle !== undefined) lane.openMiddleIn = middle;
 		return lane;
 	});
-	countBorderRows(lanes, kept.map((s) => slots.indexOf(s)));
+	countBorderRows(lanes, keptSlots);
 	return lanes;
 }
 
-/** Index of the slot whose band contains s (bands are contiguous and sorted by their right edges). */
-function slotAt(rightEdges: number[], s: number): number {
-	let lo = 0, hi = rightEdges.length - 1;
-	while (lo < hi) {
-		const mid = (lo + hi) >> 1;
-		if (rightEdges[mid] < s) lo = mid + 1;
-		else hi = mid;
-	}
-	return lo;
-}
