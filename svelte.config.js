@@ -5,8 +5,6 @@ import { vitePreprocess } from '@sveltejs/vite-plugin-svelte';
 export default {
 	preprocess: vitePreprocess(),
 	kit: {
-		adapter: adapter(),
-		// Forms must work without JavaScript; SvelteKit's origin check stays on.
-		csrf: { checkOrigin: true }
+		adapter: adapter()
 	}
 };

@@ -1,0 +1,43 @@
+import { expect, test } from '@playwright/test';
+import { DEMO_FARM_ID, apiSignIn } from './helpers';
+
+// Every protected page, for every role: the status each must answer (DESIGN.md roles).
+const PAGES: { path: string; allowed: string[] }[] = [
+	{ path: `/farms/${DEMO_FARM_ID}`, allowed: ['owner', 'manager', 'crew', 'advisor', 'viewer'] },
+	{ path: `/farms/${DEMO_FARM_ID}/team`, allowed: ['owner', 'manager', 'crew', 'advisor', 'viewer'] },
+	{ path: `/farms/${DEMO_FARM_ID}/settings`, allowed: ['owner'] }
+];
+
+for (const role of ['owner', 'manager', 'crew', 'advisor', 'viewer']) {
+	test(`${role} gets the right answer on every farm page`, async ({ page }) => {
+		await apiSignIn(page.request, role);
+		for (const p of PAGES) {
+			const res = await page.goto(p.path);
+			expect(res?.status(), `${role} ${p.path}`).toBe(p.allowed.includes(role) ? 200 : 403);
+		}
+		// Another farm's id, or a made-up one, answers 404 and reveals nothing.
+		const res = await page.goto('/farms/00000000-0000-4000-8000-000000000000/team');
+		expect(res?.status()).toBe(404);
+		await expect(page.getByText('No farm here')).toBeVisible();
+	});
+}
+
+test('signed-out visitors are sent to sign in and come back', async ({ page }) => {
+	await page.goto(`/farms/${DEMO_FARM_ID}/team`);
+	await expect(page).toHaveURL(new RegExp(`/sign-in\\?redirectTo=${encodeURIComponent(`/farms/${DEMO_FARM_ID}/team`)}`));
+	await page.getByLabel('E-mail').fill('manager@demo.stripwright.test');
+	await page.getByLabel('Password').fill('stripwright-demo');
+	await page.getByRole('button', { name: 'Sign in' }).click();
+	await expect(page).toHaveURL(new RegExp(`/farms/${DEMO_FARM_ID}/team$`));
+});
+
+test('non-owners cannot post owner actions', async ({ page }) => {
+	await apiSignIn(page.request, 'manager');
+	const res = await page.request.post(`/farms/${DEMO_FARM_ID}/team?/invite`, {
+		form: { email: 'x@example.test', role: 'crew' },
+		headers: { origin: new URL(page.url() === 'about:blank' ? 'http://127.0.0.1:3100' : page.url()).origin, accept: 'application/json' }
+	});
+	const body = await res.json();
+	expect(body.type).toBe('error');
+	expect(body.status).toBe(403);
+});
