@@ -1,5 +1,6 @@
 import { buffer, difference, featureCollection, intersect, multiPolygon, union } from '@turf/turf';
 import type { Feature, MultiPolygon, Polygon, Position } from 'geojson';
+import { GeometryError } from './errors';
 
 /**
  * Polygons in a local plane (metres), as MultiPolygon coordinates. Turf's clipping (polyclip-ts)
@@ -12,17 +13,41 @@ function asShape(f: Feature<Polygon | MultiPolygon> | null | undefined): PlaneSh
 	return f.geometry.type === 'Polygon' ? [f.geometry.coordinates] : f.geometry.coordinates;
 }
 
+function snap(shape: PlaneShape, grid: number): PlaneShape {
+	return shape.map((rings) => rings.map((ring) => ring.map(([x, y]) => [Math.round(x / grid) * grid, Math.round(y / grid) * grid])));
+}
+
+/**
+ * Runs a polygon operation; polyclip-ts occasionally fails to close a ring when edges nearly
+ * coincide (two exclusions drawn on top of each other). It is then retried with every point
+ * snapped to a 1-mm, then 1-cm grid, which moves nothing a farmer could measure.
+ */
+function robust(shapes: PlaneShape[], op: (s: PlaneShape[]) => PlaneShape): PlaneShape {
+	try {
+		return op(shapes);
+	} catch (first) {
+		for (const grid of [0.001, 0.01]) {
+			try {
+				return op(shapes.map((s) => snap(s, grid)));
+			} catch {
+				// try a coarser grid
+			}
+		}
+		throw new GeometryError('invalid-geometry', 'The outlines could not be combined: some edges lie almost on top of each other. Redraw the overlapping exclusions or boundary parts.', undefined, first);
+	}
+}
+
 /** Intersection of two planar shapes. @example intersectShapes(field, band) */
 export function intersectShapes(a: PlaneShape, b: PlaneShape): PlaneShape {
 	if (a.length === 0 || b.length === 0) return [];
-	return asShape(intersect(featureCollection([multiPolygon(a), multiPolygon(b)])));
+	return robust([a, b], ([x, y]) => asShape(intersect(featureCollection([multiPolygon(x), multiPolygon(y)]))));
 }
 
 /** `a` minus every shape in `bs`. @example subtractShapes(field, [ponds]) */
 export function subtractShapes(a: PlaneShape, bs: PlaneShape[]): PlaneShape {
 	const rest = bs.filter((b) => b.length > 0);
 	if (a.length === 0 || rest.length === 0) return a;
-	return asShape(difference(featureCollection([multiPolygon(a), ...rest.map((b) => multiPolygon(b))])));
+	return robust([a, ...rest], (all) => asShape(difference(featureCollection(all.map((s) => multiPolygon(s))))));
 }
 
 /** Union of planar shapes (also cleans overlapping parts of one shape). @example unionShapes([a, b]) */
@@ -30,9 +55,8 @@ export function unionShapes(shapes: PlaneShape[]): PlaneShape {
 	const parts = shapes.filter((s) => s.length > 0);
 	if (parts.length === 0) return [];
 	// A single shape is unioned with itself so that overlapping parts are still merged.
-	const features = parts.map((s) => multiPolygon(s));
-	if (features.length === 1) features.push(features[0]);
-	return asShape(union(featureCollection(features)));
+	if (parts.length === 1) parts.push(parts[0]);
+	return robust(parts, (all) => asShape(union(featureCollection(all.map((s) => multiPolygon(s))))));
 }
 
 /** Shoelace area of a ring, positive when counter-clockwise. */

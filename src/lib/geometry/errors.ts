@@ -28,8 +28,8 @@ export class GeometryError extends Error {
 	/** Approximate [lng, lat] of the problem when it has a place (e.g. a boundary crossing). */
 	readonly where?: [number, number];
 
-	constructor(code: GeometryErrorCode, message: string, where?: [number, number]) {
-		super(message);
+	constructor(code: GeometryErrorCode, message: string, where?: [number, number], cause?: unknown) {
+		super(message, cause === undefined ? undefined : { cause });
 		this.name = 'GeometryError';
 		this.code = code;
 		if (where) this.where = where;
