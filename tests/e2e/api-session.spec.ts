@@ -24,7 +24,7 @@ test.describe('JSON API: session and farms', () => {
 	});
 
 	test('bad input gets the one error shape', async ({ request }) => {
-		const notJson = await request.post('/api/session', { headers: { 'content-type': 'application/json' }, data: '{"email":' });
+		const notJson = await request.post('/api/session', { headers: { 'content-type': 'application/json' }, data: Buffer.from('{"email":') });
 		expect(notJson.status()).toBe(400);
 		expect(await notJson.json()).toEqual({ error: { code: 'bad_json', message: 'The request body is not valid JSON.' } });
 

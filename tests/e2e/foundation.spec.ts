@@ -18,10 +18,10 @@ test('sign up, create a farm, invite a member who accepts in another browser, ro
 	await page.getByRole('link', { name: 'Team' }).first().click();
 	const crewEmail = uniqueEmail('crew');
 	await page.getByLabel('E-mail').fill(crewEmail);
-	await page.getByLabel('Role').selectOption('crew');
+	await page.getByLabel('Role', { exact: true }).selectOption('crew');
 	await page.getByRole('button', { name: 'Send invitation' }).click();
 	await expect(page.getByText(`Invitation sent to ${crewEmail}`)).toBeVisible();
-	await expect(page.getByText(crewEmail)).toBeVisible();
+	await expect(page.getByText(crewEmail, { exact: true })).toBeVisible();
 
 	const mail = await waitForMail(request, crewEmail, /invites you to Test Meadow Farm/);
 	expect(mail.text).toContain('as Crew');
@@ -50,11 +50,11 @@ test('sign up, create a farm, invite a member who accepts in another browser, ro
 	await expect(p2.getByText('Not allowed for your role')).toBeVisible();
 	await p2.goto(`${farmUrl}/team`);
 	await expect(p2.getByRole('button', { name: 'Send invitation' })).toHaveCount(0);
-	await expect(p2.getByRole('cell', { name: 'Owner Tester' })).toBeVisible();
+	await expect(p2.getByRole('cell', { name: 'Owner Tester', exact: true })).toBeVisible();
 
 	// The owner now sees the crew member on the team page.
 	await page.reload();
-	await expect(page.getByRole('cell', { name: 'Crew Tester' })).toBeVisible();
+	await expect(page.getByRole('cell', { name: 'Crew Tester', exact: true })).toBeVisible();
 
 	// A reused invitation link explains itself.
 	await p2.goto(link);
