@@ -16,7 +16,10 @@ export function distanceM(p: Position, q: Position): number {
 export function signedOffsetM(a: Position, b: Position, p: Position): number {
 	const line = GEOD.InverseLine(a[1], a[0], b[1], b[0]);
 	const len = line.s13 as number;
-	const at = (s: number) => line.Position(s);
+	const at = (s: number) => {
+		const r = line.Position(s);
+		return { lat2: r.lat2 as number, lon2: r.lon2 as number, azi2: r.azi2 as number };
+	};
 	const dist = (s: number) => {
 		const q = at(s);
 		return GEOD.Inverse(q.lat2, q.lon2, p[1], p[0]).s12 as number;
@@ -32,7 +35,7 @@ export function signedOffsetM(a: Position, b: Position, p: Position): number {
 	const s = (lo + hi) / 2;
 	const foot = at(s);
 	const inv = GEOD.Inverse(foot.lat2, foot.lon2, p[1], p[0]);
-	const side = Math.sin(((inv.azi1 - foot.azi2) * Math.PI) / 180) >= 0 ? 1 : -1;
+	const side = Math.sin((((inv.azi1 as number) - foot.azi2) * Math.PI) / 180) >= 0 ? 1 : -1;
 	return side * (inv.s12 as number);
 }
 
