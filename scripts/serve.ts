@@ -30,6 +30,8 @@ async function requirePort(p: number, what: string, variable: string) {
 
 const env: NodeJS.ProcessEnv = { ...process.env, HOST: host, PORT: String(port) };
 env.ORIGIN ??= `http://${host}:${port}`;
+// Boundary uploads may be up to 10 MB; the import code enforces that with a clear message.
+env.BODY_SIZE_LIMIT ??= '12M';
 const closers: (() => Promise<void>)[] = [];
 
 await requirePort(port, 'the web app', 'PORT');

@@ -2,28 +2,10 @@
 import { isHttpError, isRedirect, json, type RequestEvent, type RequestHandler } from '@sveltejs/kit';
 import { ZodError, type ZodType } from 'zod';
 import { randomUUID } from 'node:crypto';
+import { AppError } from './errors';
+import { GeometryError } from '../geometry/index';
 
-const CODES: Record<number, string> = {
-	400: 'bad_request',
-	401: 'unauthenticated',
-	403: 'forbidden',
-	404: 'not_found',
-	409: 'version_conflict',
-	413: 'too_large',
-	429: 'too_many_requests'
-};
-
-export class ApiError extends Error {
-	constructor(
-		readonly status: number,
-		message: string,
-		readonly code = CODES[status] ?? 'error',
-		readonly fields?: Record<string, string[]>,
-		readonly headers?: Record<string, string>
-	) {
-		super(message);
-	}
-}
+export { AppError as ApiError } from './errors';
 
 export function apiError(status: number, code: string, message: string, fields?: Record<string, string[]>, headers?: Record<string, string>) {
 	return json({ error: fields ? { code, message, fields } : { code, message } }, { status, headers });
@@ -45,11 +27,11 @@ export async function readJson<T>(event: RequestEvent, schema: ZodType<T>): Prom
 	try {
 		body = await event.request.json();
 	} catch {
-		throw new ApiError(400, 'The request body is not valid JSON.', 'bad_json');
+		throw new AppError(400, 'The request body is not valid JSON.', 'bad_json');
 	}
 	const parsed = schema.safeParse(body);
 	if (!parsed.success) {
-		throw new ApiError(400, 'Some values are missing or not valid; see fields.', 'invalid', zodFields(parsed.error));
+		throw new AppError(400, 'Some values are missing or not valid; see fields.', 'invalid', zodFields(parsed.error));
 	}
 	return parsed.data;
 }
@@ -60,11 +42,12 @@ export function api(handler: RequestHandler): RequestHandler {
 		try {
 			return await handler(event);
 		} catch (e) {
-			if (e instanceof ApiError) return apiError(e.status, e.code, e.message, e.fields, e.headers);
+			if (e instanceof AppError) return apiError(e.status, e.code, e.message, e.fields, e.headers);
 			if (isHttpError(e)) {
 				const body = e.body as App.Error;
-				return apiError(e.status, body.code ?? CODES[e.status] ?? 'error', body.message);
+				return apiError(e.status, body.code ?? 'error', body.message);
 			}
+			if (e instanceof GeometryError) return apiError(400, e.code, e.message);
 			if (isRedirect(e)) throw e;
 			if (e instanceof ZodError) return apiError(400, 'invalid', 'Some values are not valid; see fields.', zodFields(e));
 			const errorId = randomUUID();
