@@ -1,0 +1,45 @@
+/** Every reason an uploaded boundary file is refused. */
+export type ImportErrorCode =
+	| 'too_large'
+	| 'zip_too_large'
+	| 'zip_too_many_files'
+	| 'empty_file'
+	| 'unsupported_format'
+	| 'wrong_content'
+	| 'unreadable'
+	| 'not_geojson'
+	| 'not_kml'
+	| 'no_shapefile'
+	| 'no_polygons'
+	| 'invalid_geometry'
+	| 'projected_coordinates'
+	| 'swapped_coordinates'
+	| 'unknown_projection'
+	| 'open_ring'
+	| 'too_few_positions'
+	| 'self_intersection'
+	| 'zero_area'
+	| 'area_too_large';
+
+/**
+ * The only error `parseFieldFile` throws. `code` is stable for programs, `status` is the HTTP
+ * status a route should answer with, and `message` is written for the farmer.
+ */
+export class ImportError extends Error {
+	readonly code: ImportErrorCode;
+	readonly status: 400 | 413;
+
+	constructor(code: ImportErrorCode, message: string, status: 400 | 413 = 400) {
+		super(message);
+		this.name = 'ImportError';
+		this.code = code;
+		this.status = status;
+	}
+}
+
+/** First line of a library's error, trimmed, for "could not be read as …: <reason>". */
+export function shortReason(e: unknown): string {
+	const text = e instanceof Error ? e.message : String(e);
+	const line = text.split('\n').find((l) => l.trim() !== '')?.trim() ?? 'unknown error';
+	return line.length > 160 ? `${line.slice(0, 157)}…` : line;
+}
