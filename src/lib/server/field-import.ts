@@ -2,7 +2,7 @@
 // WGS84 polygons. Server-only and free of HTTP and database concerns: a route passes the bytes
 // and answers an ImportError with its `status` and `message`.
 import type { FeatureCollection, MultiPolygon, Polygon } from 'geojson';
-import { ImportError } from './field-import/errors';
+import { ImportError, shortReason } from './field-import/errors';
 import { readGeoJson } from './field-import/geojson';
 import { readKml } from './field-import/kml';
 import { IMPORT_LIMITS, megabytes } from './field-import/limits';
@@ -89,7 +89,11 @@ function toResult(format: ImportFormat, shapes: ImportedShape[], warnings: strin
  */
 export async function parseFieldFile(filename: string, bytes: Uint8Array): Promise<ImportResult> {
 	if (bytes.length > IMPORT_LIMITS.maxUploadBytes) {
-		throw new ImportError('too_large', `The file is ${(bytes.length / (1024 * 1024)).toFixed(1)} MB; the limit is ${megabytes(IMPORT_LIMITS.maxUploadBytes)}. Boundary files are usually far smaller: upload only the fields you need.`, 413);
+		throw new ImportError(
+			'too_large',
+			`The file is ${(bytes.length / (1024 * 1024)).toFixed(1)} MB, over the ${megabytes(IMPORT_LIMITS.maxUploadBytes)} limit. Boundary files are usually far smaller: upload only the fields you need.`,
+			413
+		);
 	}
 	const extension = extensionOf(filename);
 	const kind = EXTENSIONS[extension];
@@ -104,10 +108,16 @@ export async function parseFieldFile(filename: string, bytes: Uint8Array): Promi
 	if (!kind.expects.includes(content)) {
 		throw new ImportError('wrong_content', `This .${extension} file is not ${kind.what}: it holds ${describeContent(content)}.`);
 	}
-	const { features, warnings } = read(kind.format, extension, bytes);
-	const fileLabel = `${FORMAT_NAMES[kind.format]} file`;
-	const collected = collectPolygons(features, fileLabel);
-	requireLongitudeLatitude(collected.candidates, fileLabel);
-	const shapes = checkShapes(collected.candidates);
-	return toResult(kind.format, shapes, [...warnings, ...collected.warnings]);
+	try {
+		const { features, warnings } = read(kind.format, extension, bytes);
+		const fileLabel = `${FORMAT_NAMES[kind.format]} file`;
+		const collected = collectPolygons(features, fileLabel);
+		requireLongitudeLatitude(collected.candidates, fileLabel);
+		const shapes = checkShapes(collected.candidates);
+		return toResult(kind.format, shapes, [...warnings, ...collected.warnings]);
+	} catch (e) {
+		if (e instanceof ImportError) throw e;
+		// Libraries fail on damaged input in their own words; the caller only ever sees ImportError.
+		throw new ImportError('unreadable', `The file could not be read as ${FORMAT_NAMES[kind.format]}: ${shortReason(e)}.`);
+	}
 }

@@ -198,41 +198,59 @@ function ringTurn(ring: Position[]): number {
 
 /** RFC 7946 right-hand rule (outer counter-clockwise, holes clockwise); shapefiles store the opposite. */
 function rightHanded(rings: Position[][]): Position[][] {
-	return rings.map((ring, i) => ((i === 0) === ringTurn(ring) > 0 ? ring : [...ring].reverse()));
+	return rings.map((ring, i) => ((i === 0) === (ringTurn(ring) > 0) ? ring : [...ring].reverse()));
+}
+
+function withoutRepeats(ring: Position[]): Position[] {
+	return ring.filter((p, i) => i === 0 || !samePosition(p, ring[i - 1]));
+}
+
+/** Checks one polygon's rings and returns them with repeated consecutive positions dropped. */
+function checkRings(c: Candidate, rings: Position[][], polygonIndex: number): Position[][] {
+	const cleaned = rings.map((ring, ri) => {
+		const where = ringName(polygonIndex, ri, c.polygons.length);
+		if (ring.length < 4) {
+			throw new ImportError(
+				'too_few_positions',
+				`${c.label}: ${where} has only ${ring.length} position${ring.length === 1 ? '' : 's'}; an outline needs at least 3 corners plus the first corner repeated at the end (4 positions).`
+			);
+		}
+		const first = ring[0];
+		const last = ring[ring.length - 1];
+		if (!samePosition(first, last)) {
+			throw new ImportError(
+				'open_ring',
+				`${c.label}: ${where} is not closed: it starts at ${fmt(first[0])}, ${fmt(first[1])} but ends at ${fmt(last[0])}, ${fmt(last[1])}. An outline must end on its first position.`
+			);
+		}
+		// Repeated points are common in exported files and harmless, but they read as crossings.
+		const distinct = withoutRepeats(ring);
+		if (distinct.length < 4) {
+			throw new ImportError(
+				'too_few_positions',
+				`${c.label}: ${where} has only ${distinct.length - 1} distinct corner${distinct.length === 2 ? '' : 's'}; an outline needs at least 3.`
+			);
+		}
+		return distinct;
+	});
+	const crossings = kinks(turfPolygon(cleaned));
+	if (crossings.features.length) {
+		const [lng, lat] = crossings.features[0].geometry.coordinates;
+		throw new ImportError(
+			'self_intersection',
+			`${c.label} crosses itself near longitude ${lng.toFixed(6)}, latitude ${lat.toFixed(6)}. Fix the outline so its edges do not cross.`
+		);
+	}
+	return cleaned;
 }
 
 function checkCandidate(c: Candidate): ImportedShape {
-	c.polygons.forEach((rings, pi) => {
-		rings.forEach((ring, ri) => {
-			const where = ringName(pi, ri, c.polygons.length);
-			if (ring.length < 4) {
-				throw new ImportError(
-					'too_few_positions',
-					`${c.label}: ${where} has only ${ring.length} position${ring.length === 1 ? '' : 's'}; an outline needs at least 3 corners plus the first corner repeated at the end (4 positions).`
-				);
-			}
-			if (!samePosition(ring[0], ring[ring.length - 1])) {
-				throw new ImportError(
-					'open_ring',
-					`${c.label}: ${where} is not closed: it starts at ${fmt(ring[0][0])}, ${fmt(ring[0][1])} but ends at ${fmt(ring[ring.length - 1][0])}, ${fmt(ring[ring.length - 1][1])}. GeoJSON outlines must end on their first position.`
-				);
-			}
-		});
-		const crossings = kinks(turfPolygon(rings));
-		if (crossings.features.length) {
-			const [lng, lat] = crossings.features[0].geometry.coordinates;
-			throw new ImportError(
-				'self_intersection',
-				`${c.label} crosses itself near longitude ${lng.toFixed(6)}, latitude ${lat.toFixed(6)}. Fix the outline so its edges do not cross.`
-			);
-		}
-	});
-	const polygons = c.polygons.map(rightHanded);
+	const polygons = c.polygons.map((rings, pi) => rightHanded(checkRings(c, rings, pi)));
 	const geometry: Polygon | MultiPolygon =
 		polygons.length === 1 ? { type: 'Polygon', coordinates: polygons[0] } : { type: 'MultiPolygon', coordinates: polygons };
 	const acres = Math.round(geodesicAcres(geometry) * 100) / 100;
-	if (acres === 0) {
-		throw new ImportError('zero_area', `${c.label} encloses no area (0 acres). Its corners lie on one line or on top of each other.`);
+	if (!(acres > 0)) {
+		throw new ImportError('zero_area', `${c.label} encloses no area (0 acres): its corners lie on one line or almost on top of each other.`);
 	}
 	if (acres > MAX_FIELD_ACRES) {
 		throw new ImportError(
