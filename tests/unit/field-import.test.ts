@@ -12,7 +12,7 @@ import { toShapefileRings, writeDbf, writeShp } from '../fixtures/import/shapefi
 const fixture = (name: string) => new Uint8Array(readFileSync(new URL(`../fixtures/import/${name}`, import.meta.url)));
 const json = (value: unknown) => new TextEncoder().encode(JSON.stringify(value));
 const text = (value: string) => new TextEncoder().encode(value);
-const polygonFile = (...rings: Position[][]) => json({ type: 'Polygon', coordinates: rings });
+const polygonFile = (...rings: unknown[][]) => json({ type: 'Polygon', coordinates: rings });
 
 async function refused(filename: string, bytes: Uint8Array): Promise<ImportError> {
 	const outcome = await parseFieldFile(filename, bytes).then(

@@ -1,10 +1,10 @@
 // Turns the features read from any format into checked field shapes: only polygons are kept,
 // each one is validated, named and measured, and one bad shape refuses the whole upload.
-import { kinks, polygon as turfPolygon } from '@turf/turf';
 import type { MultiPolygon, Polygon, Position } from 'geojson';
 import { geodesicAcres } from '../../geometry/index';
 import { MAX_FIELD_ACRES } from '../../geometry/validate';
 import { ImportError } from './errors';
+import { checkRings, fmt, rightHanded } from './rings';
 
 export interface ImportedShape {
 	name: string;
@@ -156,10 +156,6 @@ function allPositions(candidates: Candidate[]): Generator<[Candidate, Position]>
 	})();
 }
 
-function fmt(n: number): string {
-	return Number.isInteger(n) ? String(n) : String(Number(n.toFixed(6)));
-}
-
 /**
  * Refuses coordinates that cannot be longitude/latitude, saying whether they look swapped or
  * projected. The swap test only fires when longitude is beyond ±90°, the only case that shows.
@@ -180,72 +176,8 @@ export function requireLongitudeLatitude(candidates: Candidate[], fileLabel: str
 	}
 }
 
-function samePosition(a: Position, b: Position): boolean {
-	return a[0] === b[0] && a[1] === b[1];
-}
-
-function ringName(polygonIndex: number, ringIndex: number, polygonCount: number): string {
-	const ring = ringIndex === 0 ? 'outer boundary' : `hole ${ringIndex}`;
-	return polygonCount > 1 ? `part ${polygonIndex + 1}'s ${ring}` : `its ${ring}`;
-}
-
-/** Twice the planar signed area; positive when the ring runs counter-clockwise. */
-function ringTurn(ring: Position[]): number {
-	let sum = 0;
-	for (let i = 1; i < ring.length; i++) sum += (ring[i][0] - ring[i - 1][0]) * (ring[i][1] + ring[i - 1][1]);
-	return -sum;
-}
-
-/** RFC 7946 right-hand rule (outer counter-clockwise, holes clockwise); shapefiles store the opposite. */
-function rightHanded(rings: Position[][]): Position[][] {
-	return rings.map((ring, i) => ((i === 0) === (ringTurn(ring) > 0) ? ring : [...ring].reverse()));
-}
-
-function withoutRepeats(ring: Position[]): Position[] {
-	return ring.filter((p, i) => i === 0 || !samePosition(p, ring[i - 1]));
-}
-
-/** Checks one polygon's rings and returns them with repeated consecutive positions dropped. */
-function checkRings(c: Candidate, rings: Position[][], polygonIndex: number): Position[][] {
-	const cleaned = rings.map((ring, ri) => {
-		const where = ringName(polygonIndex, ri, c.polygons.length);
-		if (ring.length < 4) {
-			throw new ImportError(
-				'too_few_positions',
-				`${c.label}: ${where} has only ${ring.length} position${ring.length === 1 ? '' : 's'}; an outline needs at least 3 corners plus the first corner repeated at the end (4 positions).`
-			);
-		}
-		const first = ring[0];
-		const last = ring[ring.length - 1];
-		if (!samePosition(first, last)) {
-			throw new ImportError(
-				'open_ring',
-				`${c.label}: ${where} is not closed: it starts at ${fmt(first[0])}, ${fmt(first[1])} but ends at ${fmt(last[0])}, ${fmt(last[1])}. An outline must end on its first position.`
-			);
-		}
-		// Repeated points are common in exported files and harmless, but they read as crossings.
-		const distinct = withoutRepeats(ring);
-		if (distinct.length < 4) {
-			throw new ImportError(
-				'too_few_positions',
-				`${c.label}: ${where} has only ${distinct.length - 1} distinct corner${distinct.length === 2 ? '' : 's'}; an outline needs at least 3.`
-			);
-		}
-		return distinct;
-	});
-	const crossings = kinks(turfPolygon(cleaned));
-	if (crossings.features.length) {
-		const [lng, lat] = crossings.features[0].geometry.coordinates;
-		throw new ImportError(
-			'self_intersection',
-			`${c.label} crosses itself near longitude ${lng.toFixed(6)}, latitude ${lat.toFixed(6)}. Fix the outline so its edges do not cross.`
-		);
-	}
-	return cleaned;
-}
-
 function checkCandidate(c: Candidate): ImportedShape {
-	const polygons = c.polygons.map((rings, pi) => rightHanded(checkRings(c, rings, pi)));
+	const polygons = c.polygons.map((rings, pi) => rightHanded(checkRings(c.label, rings, pi, c.polygons.length)));
 	const geometry: Polygon | MultiPolygon =
 		polygons.length === 1 ? { type: 'Polygon', coordinates: polygons[0] } : { type: 'MultiPolygon', coordinates: polygons };
 	const acres = Math.round(geodesicAcres(geometry) * 100) / 100;
