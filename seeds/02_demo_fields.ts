@@ -9,7 +9,7 @@ const OWNER = DEMO_PEOPLE[0].id;
 const FT = 0.3048;
 
 /** Offsets in feet east/north of an origin to [lng, lat] (local approximation; fine for demo data). */
-function at(origin: [number, number], eastFt: number, northFt: number): [number, number] {
+export function at(origin: [number, number], eastFt: number, northFt: number): [number, number] {
 	const [lng, lat] = origin;
 	const mPerDegLat = 111_132.92 - 559.82 * Math.cos((2 * lat * Math.PI) / 180);
 	const mPerDegLng = 111_412.84 * Math.cos((lat * Math.PI) / 180);
@@ -27,9 +27,9 @@ export const DEMO_FIELDS = {
 	pasture: '5a1e0000-0000-4000-8000-0000000001f3'
 } as const;
 
-const NORTH80_ORIGIN: [number, number] = [-94.2205, 43.9131];
-const WIDE_ORIGIN: [number, number] = [-94.2051, 43.9062];
-const PASTURE_ORIGIN: [number, number] = [-94.2288, 43.9025];
+export const NORTH80_ORIGIN: [number, number] = [-94.2205, 43.9131];
+export const WIDE_ORIGIN: [number, number] = [-94.2051, 43.9062];
+export const PASTURE_ORIGIN: [number, number] = [-94.2288, 43.9025];
 
 interface DemoField {
 	id: string;

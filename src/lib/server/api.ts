@@ -1,5 +1,5 @@
 // JSON API plumbing: one error shape everywhere, { error: { code, message, fields? } }.
-import { isHttpError, isRedirect, json, type RequestEvent, type RequestHandler } from '@sveltejs/kit';
+import { isHttpError, isRedirect, json, type RequestEvent } from '@sveltejs/kit';
 import { ZodError, type ZodType } from 'zod';
 import { randomUUID } from 'node:crypto';
 import { AppError } from './errors';
@@ -37,8 +37,8 @@ export async function readJson<T>(event: RequestEvent, schema: ZodType<T>): Prom
 }
 
 /** Wraps a JSON handler so every failure answers in the one error shape, never a stack trace. */
-export function api(handler: RequestHandler): RequestHandler {
-	return async (event) => {
+export function api<E extends RequestEvent>(handler: (event: E) => Response | Promise<Response>): (event: E) => Promise<Response> {
+	return async (event: E) => {
 		try {
 			return await handler(event);
 		} catch (e) {

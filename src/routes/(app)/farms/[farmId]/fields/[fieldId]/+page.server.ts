@@ -4,6 +4,7 @@ import { requireMember } from '$lib/server/access';
 import { deleteField, getField, listBoundaryVersions } from '$lib/server/fields';
 import { AppError } from '$lib/server/errors';
 import { error } from '@sveltejs/kit';
+import { listPlans } from '$lib/server/plans';
 
 async function loadField(access: Awaited<ReturnType<typeof requireMember>>, fieldId: string) {
 	try {
@@ -20,7 +21,7 @@ export const load: PageServerLoad = async (event) => {
 	const versions = await listBoundaryVersions(access, field.id);
 	const asked = Number(event.url.searchParams.get('version'));
 	const shown = versions.find((v) => v.version === asked) ?? versions[0];
-	return { field, versions, shown };
+	return { field, versions, shown, plans: await listPlans(access, field.id) };
 };
 
 export const actions: Actions = {

@@ -1,0 +1,91 @@
+import { error, fail, redirect } from '@sveltejs/kit';
+import type { Actions, PageServerLoad } from './$types';
+import { requireMember } from '$lib/server/access';
+import { getBoundaryVersion, getField } from '$lib/server/fields';
+import { adoptVariant, deletePlanVariant, getPlan, listPlans, rotationFromPrevious, savePlan, type Plan } from '$lib/server/plans';
+import { AppError } from '$lib/server/errors';
+import { parseSeason } from '$lib/server/season';
+import { planSaveSchema } from '$lib/schemas/plan';
+import { zodFields } from '$lib/server/api';
+
+function pageError(e: unknown): never {
+	if (e instanceof AppError) error(e.status, { message: e.message, code: e.code });
+	throw e;
+}
+
+export const load: PageServerLoad = async (event) => {
+	const access = await requireMember(event, event.params.farmId, 'read');
+	try {
+		const field = await getField(access, event.params.fieldId);
+		const season = parseSeason(event.params.season);
+		const variant = event.url.searchParams.get('variant') ?? undefined;
+		let plan: Plan | null = null;
+		try {
+			plan = await getPlan(access, field.id, season, variant);
+		} catch (e) {
+			if (!(e instanceof AppError && e.status === 404 && !variant)) throw e;
+		}
+		const outline = await getBoundaryVersion(access, field.id, plan?.boundaryVersion ?? field.boundaryVersion);
+		return {
+			field: { id: field.id, name: field.name, boundaryVersion: field.boundaryVersion, acres: field.acres },
+			season,
+			plan,
+			plans: await listPlans(access, field.id),
+			outline: { version: outline.version, boundary: outline.boundary, exclusions: outline.exclusions },
+			rotation: plan ? await rotationFromPrevious(access, plan) : null
+		};
+	} catch (e) {
+		pageError(e);
+	}
+};
+
+const seasonUrl = (farmId: string, fieldId: string, season: number, variant?: string) =>
+	`/farms/${farmId}/fields/${fieldId}/plans/${season}${variant ? `?variant=${encodeURIComponent(variant)}` : ''}`;
+
+export const actions: Actions = {
+	adopt: async (event) => {
+		const access = await requireMember(event, event.params.farmId, 'editPlans');
+		const variant = String((await event.request.formData()).get('variant') ?? '');
+		const season = parseSeason(event.params.season);
+		try {
+			await adoptVariant(access, event.params.fieldId, season, variant);
+		} catch (e) {
+			if (e instanceof AppError) return fail(e.status, { actionError: e.message });
+			throw e;
+		}
+		redirect(303, seasonUrl(access.farm.id, event.params.fieldId, season));
+	},
+	deleteVariant: async (event) => {
+		const access = await requireMember(event, event.params.farmId, 'editPlans');
+		const variant = String((await event.request.formData()).get('variant') ?? '');
+		const season = parseSeason(event.params.season);
+		try {
+			await deletePlanVariant(access, event.params.fieldId, season, variant);
+		} catch (e) {
+			if (e instanceof AppError) return fail(e.status, { actionError: e.message });
+			throw e;
+		}
+		redirect(303, seasonUrl(access.farm.id, event.params.fieldId, season));
+	},
+	// Without JavaScript the editor posts its settings as JSON text; with it, the page uses PUT.
+	save: async (event) => {
+		const access = await requireMember(event, event.params.farmId, 'editPlans');
+		const data = await event.request.formData();
+		const season = parseSeason(event.params.season);
+		let body: unknown;
+		try {
+			body = JSON.parse(String(data.get('settings') ?? ''));
+		} catch (e) {
+			return fail(400, { actionError: `The plan settings are not valid JSON: ${(e as Error).message}` });
+		}
+		const parsed = planSaveSchema.safeParse(body);
+		if (!parsed.success) return fail(400, { actionError: Object.entries(zodFields(parsed.error)).map(([k, v]) => `${k}: ${v.join(' ')}`).join(' · ') });
+		try {
+			const plan = await savePlan(access, event.params.fieldId, season, parsed.data);
+			redirect(303, seasonUrl(access.farm.id, event.params.fieldId, season, plan.adopted ? undefined : plan.variant));
+		} catch (e) {
+			if (e instanceof AppError) return fail(e.status, { actionError: e.message });
+			throw e;
+		}
+	}
+};
