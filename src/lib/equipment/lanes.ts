@@ -15,7 +15,7 @@ export interface LaneInput {
 	/** Left edge's signed distance right of A→B, feet. */
 	offsetFt: number;
 	patternIndex?: number;
-	acres?: number;
+	acres?: number | null;
 	rowSpacingIn?: number | null;
 	/** Row centres (a twin pair counts as one row), inches from the lane's left edge. */
 	rowPositionsIn?: number[];

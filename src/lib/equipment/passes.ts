@@ -162,7 +162,7 @@ export function planPasses(input: PlanPassesInput): PassPlan {
 	for (const target of allRows) {
 		if (target.planted || target.unplantable) continue;
 		const preferred: FieldEnd = previous === null ? firstEnd : other(previous);
-		const candidates = ends === 'alternate' ? [preferred] : [preferred, other(preferred)];
+		const candidates: FieldEnd[] = ends === 'alternate' ? [preferred] : [preferred, other(preferred)];
 		let best: { startsAt: FieldEnd; units: PassUnit[]; planted: RowSlot[]; leftEdgeFt: number } | null = null;
 		for (const startsAt of candidates) {
 			const anchor = anchorUnit(planter, startsAt, startSide, ends === 'alternate' ? null : target.crop);
