@@ -1,0 +1,105 @@
+// The cab seeding sheet as a printable PDF (US Letter, portrait, large type, black on white).
+import PDFDocument from 'pdfkit';
+import type { SheetData } from '../sheet/types';
+import { cropStyles } from './sheet-pdf/crop-style';
+import { BOLD, REGULAR, glyphCoverage, loadSheetFonts } from './sheet-pdf/fonts';
+import { NO_PLANTER, drawHeader, drawNotice, drawStopBanner, sheetTitle } from './sheet-pdf/header';
+import { drawLaneMap } from './sheet-pdf/lane-map';
+import {
+	drawCautions,
+	drawChecks,
+	drawHazards,
+	drawLanesTable,
+	drawPasses,
+	drawQuantities,
+	drawRowUnits,
+	drawSignOff
+} from './sheet-pdf/sections';
+import { PAGE, SheetWriter } from './sheet-pdf/writer';
+
+export { NO_PLANTER } from './sheet-pdf/header';
+
+export interface SheetPdfOptions {
+	/** IANA zone for the printed date, e.g. "America/Chicago"; the server's zone when left out. */
+	timeZone?: string;
+}
+
+/**
+ * Renders the seeding sheet. Content order: header, STOP banner, lane map, lanes, row units,
+ * passes, checks, hazards, quantities, sign-off line, cautions; every page carries the field,
+ * season and "Page N of M" in its footer.
+ *
+ * @example
+ * const pdf = await renderSheetPdf(sheet);
+ * return new Response(pdf, { headers: { 'content-type': 'application/pdf' } });
+ */
+export async function renderSheetPdf(sheet: SheetData, options: SheetPdfOptions = {}): Promise<Buffer> {
+	const fonts = loadSheetFonts();
+	const doc = new PDFDocument({
+		size: 'LETTER',
+		layout: 'portrait',
+		// Our own layout keeps content above PAGE.bottom; a zero bottom margin stops pdfkit from
+		// adding pages on its own when the footer is written.
+		margins: { top: PAGE.top, left: PAGE.left, right: PAGE.width - PAGE.right, bottom: 0 },
+		bufferPages: true,
+		// pdfkit opens any font source here (its typing says path only); a buffer keeps pdfkit from
+		// loading its built-in Helvetica metrics, which a bundled server may not carry.
+		font: fonts.regular as unknown as string,
+		info: {
+			Title: sheetTitle(sheet),
+			Author: 'Stripwright',
+			Creator: 'Stripwright',
+			CreationDate: sheet.printedAt,
+			ModDate: sheet.printedAt
+		}
+	});
+	doc.registerFont(REGULAR, fonts.regular);
+	doc.registerFont(BOLD, fonts.bold);
+	doc.font(REGULAR);
+
+	const chunks: Buffer[] = [];
+	const done = new Promise<Buffer>((resolve, reject) => {
+		doc.on('data', (chunk: Buffer) => chunks.push(chunk));
+		doc.on('end', () => resolve(Buffer.concat(chunks)));
+		doc.on('error', reject);
+	});
+
+	try {
+		const w = new SheetWriter(doc, glyphCoverage(doc));
+		const styles = cropStyles(sheet.lanes);
+
+		drawHeader(w, sheet, options.timeZone);
+		drawStopBanner(w, sheet.checks);
+		if (!sheet.equipment) drawNotice(w, NO_PLANTER);
+		drawLaneMap(w, sheet, styles, 230);
+		drawLanesTable(w, sheet, styles);
+		if (sheet.equipment) {
+			drawRowUnits(w, sheet.equipment);
+			drawPasses(w, sheet);
+		}
+		drawChecks(w, sheet);
+		drawHazards(w, sheet);
+		drawQuantities(w, sheet);
+		drawSignOff(w);
+		drawCautions(w, sheet);
+		drawFooters(w, sheet);
+	} catch (error) {
+		doc.end();
+		await done.catch(() => undefined);
+		throw error;
+	}
+	doc.end();
+	return done;
+}
+
+function drawFooters(w: SheetWriter, sheet: SheetData): void {
+	const { start, count } = w.doc.bufferedPageRange();
+	const style = { size: 11 };
+	const where = `${sheet.fieldName} · ${sheet.season} · ${sheet.planName}`;
+	for (let i = start; i < start + count; i++) {
+		w.doc.switchToPage(i);
+		w.doc.lineWidth(0.8).strokeColor('#000000').moveTo(PAGE.left, PAGE.footerY - 4).lineTo(PAGE.right, PAGE.footerY - 4).stroke();
+		w.writeLine(where, PAGE.left, PAGE.footerY, style, PAGE.contentWidth - 110);
+		w.writeLine(`Page ${i - start + 1} of ${count}`, PAGE.right - 110, PAGE.footerY, { ...style, bold: true, align: 'right' }, 110);
+	}
+}

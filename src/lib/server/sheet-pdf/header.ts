@@ -1,0 +1,87 @@
+// First-page header, the STOP banner and the no-planter notice.
+import type { SheetCheck, SheetData } from '../../sheet/types';
+import { countOf, formatAcres, formatFeet, formatPrintedAt } from './text';
+import { INK, PAGE, PAPER, SheetWriter, type TextStyle } from './writer';
+
+export const NO_PLANTER = 'No planter set up for this farm yet: passes and row units are not shown.';
+
+export function sheetTitle(data: Pick<SheetData, 'fieldName' | 'season'>): string {
+	return `Seeding sheet — ${data.fieldName} ${data.season}`;
+}
+
+export function drawHeader(w: SheetWriter, data: SheetData, timeZone?: string): void {
+	const title: TextStyle = { size: 22, bold: true };
+	w.y += w.write(w.clean(sheetTitle(data)), PAGE.left, w.y, PAGE.contentWidth, title) + 4;
+
+	const facts: [string, string][] = [
+		['Farm', data.farmName],
+		['Field', data.fieldName],
+		['Season', String(data.season)],
+		['Plan', data.planName],
+		['Field acres', formatAcres(data.fieldAcres)],
+		['Planted acres', formatAcres(data.plantedAcres)],
+		['Headland', formatFeet(data.headlandFt)],
+		['Lanes', String(data.lanes.length)],
+		['Printed', formatPrintedAt(data.printedAt, timeZone)],
+		['Prepared by', data.preparedBy]
+	];
+	const label: TextStyle = { size: 11 };
+	const value: TextStyle = { size: 12, bold: true };
+	const columnWidth = PAGE.contentWidth / 2;
+	const labelWidth = 90;
+	for (let i = 0; i < facts.length; i += 2) {
+		const pair = facts.slice(i, i + 2);
+		const height = Math.max(
+			...pair.map(([, v]) => w.measure(v, columnWidth - labelWidth - 8, value))
+		);
+		pair.forEach(([k, v], j) => {
+			const x = PAGE.left + j * columnWidth;
+			w.write(`${k}:`, x, w.y + 1, labelWidth, label);
+			w.write(v, x + labelWidth, w.y, columnWidth - labelWidth - 8, value);
+		});
+		w.y += height + 3;
+	}
+	w.y += 4;
+}
+
+/** Black band with the number of stop-level problems, then each one; nothing when there are none. */
+export function drawStopBanner(w: SheetWriter, checks: SheetCheck[]): void {
+	const stops = checks.filter((c) => c.severity === 'stop');
+	if (stops.length === 0) return;
+	const band: TextStyle = { size: 16, bold: true, color: PAPER };
+	const item: TextStyle = { size: 12, bold: true };
+	const headline = `STOP: ${countOf(stops.length, 'problem')} to fix before planting`;
+	const lines = stops.map((c) => checkText(c));
+	const bandHeight = w.measure(headline, PAGE.contentWidth - 16, band) + 10;
+	const listHeight = lines.reduce((sum, t) => sum + w.measure(`• ${t}`, PAGE.contentWidth - 24, item) + 3, 0) + 8;
+	w.ensure(bandHeight + Math.min(listHeight, 200));
+	const top = w.y;
+	const page = w.page;
+	w.doc.rect(PAGE.left, top, PAGE.contentWidth, bandHeight).fill(INK);
+	w.write(headline, PAGE.left + 8, top + 5, PAGE.contentWidth - 16, band);
+	w.y = top + bandHeight + 5;
+	for (const line of lines) w.paragraph(`• ${line}`, item, 12);
+	const bottom = w.y + 2;
+	if (w.page === page) {
+		w.doc.lineWidth(3).strokeColor(INK).rect(PAGE.left, top, PAGE.contentWidth, bottom - top).stroke();
+	}
+	w.y = bottom + 8;
+}
+
+export function drawNotice(w: SheetWriter, text: string): void {
+	const style: TextStyle = { size: 13, bold: true };
+	const height = w.measure(text, PAGE.contentWidth - 20, style) + 14;
+	w.ensure(height);
+	w.doc.lineWidth(2).strokeColor(INK).rect(PAGE.left, w.y, PAGE.contentWidth, height).stroke();
+	w.write(text, PAGE.left + 10, w.y + 7, PAGE.contentWidth - 20, style);
+	w.y += height + 8;
+}
+
+/** "Unit 9 on lane 5 has fertilizer for the wrong crop (lane 5, unit 9)" style line. */
+export function checkText(check: SheetCheck): string {
+	const where = [
+		check.laneIndex !== null ? `lane ${check.laneIndex + 1}` : '',
+		check.unit !== null ? `unit ${check.unit}` : ''
+	].filter(Boolean);
+	return where.length ? `${check.message} (${where.join(', ')})` : check.message;
+}

@@ -1,0 +1,93 @@
+// Tables that flow across pages, repeating their title and header row on each new page.
+import { INK, PAGE, PAPER, ROW_TINT, SheetWriter, type TextStyle } from './writer';
+
+export interface TableColumn {
+	header: string;
+	width: number;
+	align?: 'left' | 'right' | 'center';
+}
+
+export interface TableCell {
+	text: string;
+	bold?: boolean;
+	/** Drawn in a square at the left of the cell, before the text (crop swatch, tick box). */
+	mark?: { size: number; draw: (x: number, y: number) => void };
+}
+
+export interface TableOptions {
+	title: string;
+	size: number;
+	headerSize?: number;
+	padX?: number;
+	padY?: number;
+}
+
+type Cell = TableCell | string;
+
+const asCell = (cell: Cell): TableCell => (typeof cell === 'string' ? { text: cell } : cell);
+
+/** Draws the table at the writer's cursor and leaves the cursor below it. */
+export function drawTable(w: SheetWriter, columns: TableColumn[], rows: Cell[][], options: TableOptions): void {
+	const padX = options.padX ?? 4;
+	const padY = options.padY ?? 3;
+	const bodyStyle: TextStyle = { size: options.size };
+	const headerStyle: TextStyle = { size: options.headerSize ?? Math.max(10, options.size - 1), bold: true };
+	const total = columns.reduce((sum, c) => sum + c.width, 0);
+	const scale = PAGE.contentWidth / total;
+	const widths = columns.map((c) => c.width * scale);
+	const xs = widths.map((_, i) => PAGE.left + widths.slice(0, i).reduce((s, v) => s + v, 0));
+
+	const textWidth = (i: number, cell: TableCell) => widths[i] - 2 * padX - (cell.mark ? cell.mark.size + 4 : 0);
+	const cellHeight = (i: number, cell: TableCell, style: TextStyle) =>
+		Math.max(w.measure(cell.text, textWidth(i, cell), { ...style, bold: cell.bold ?? style.bold }), cell.mark?.size ?? 0);
+
+	const headerHeight =
+		Math.max(...columns.map((c, i) => cellHeight(i, { text: c.header }, headerStyle))) + 2 * padY;
+
+	const drawHeader = () => {
+		const top = w.y;
+		columns.forEach((c, i) => {
+			w.write(c.header, xs[i] + padX, top + padY, widths[i] - 2 * padX, { ...headerStyle, align: c.align });
+		});
+		w.y = top + headerHeight;
+		w.doc.lineWidth(1.5).strokeColor(INK).moveTo(PAGE.left, w.y).lineTo(PAGE.right, w.y).stroke();
+		w.y += 1;
+	};
+
+	const continued = () => {
+		w.write(`${options.title} (continued)`, PAGE.left, w.y, PAGE.contentWidth, { size: 12, bold: true });
+		w.y += w.measure(options.title, PAGE.contentWidth, { size: 12, bold: true }) + 4;
+		drawHeader();
+	};
+
+	const rowHeights = rows.map(
+		(row) => Math.max(...row.map((cell, i) => cellHeight(i, asCell(cell), bodyStyle))) + 2 * padY
+	);
+
+	w.heading(options.title, headerHeight + (rowHeights[0] ?? 0) + 4);
+	drawHeader();
+	w.withPageStarter(continued, () => {
+		rows.forEach((row, r) => {
+			const height = rowHeights[r];
+			w.ensure(height);
+			const top = w.y;
+			w.doc.rect(PAGE.left, top, PAGE.contentWidth, height).fill(r % 2 === 1 ? ROW_TINT : PAPER);
+			row.forEach((raw, i) => {
+				const cell = asCell(raw);
+				let x = xs[i] + padX;
+				if (cell.mark) {
+					cell.mark.draw(x, top + padY + 1);
+					x += cell.mark.size + 4;
+				}
+				w.write(cell.text, x, top + padY, textWidth(i, cell), {
+					...bodyStyle,
+					bold: cell.bold,
+					align: columns[i].align
+				});
+			});
+			w.y = top + height;
+			w.doc.lineWidth(0.5).strokeColor(INK).moveTo(PAGE.left, w.y).lineTo(PAGE.right, w.y).stroke();
+		});
+	});
+	w.y += 4;
+}
