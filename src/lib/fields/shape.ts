@@ -5,6 +5,9 @@ import type { Feature, MultiPolygon, Polygon } from 'geojson';
 import { geodesicAcres, GeometryError } from '../geometry/index';
 import { MAX_FIELD_ACRES, validatePolygonal } from '../geometry/validate';
 
+/** Smaller than this is a drawing slip, not a field. */
+export const MIN_FIELD_ACRES = 0.01;
+
 export const EXCLUSION_KINDS = ['waterway', 'wet spot', 'yard', 'building', 'tree line', 'other'] as const;
 export type ExclusionKind = (typeof EXCLUSION_KINDS)[number];
 
@@ -53,8 +56,11 @@ export function measureFieldShape(shape: FieldShape): FieldMeasure {
 	validatePolygonal(shape.boundary, 'field boundary');
 	checkNoSelfCrossing(shape.boundary, 'field boundary');
 	const acres = geodesicAcres(shape.boundary);
-	if (!(acres > 0.001)) {
-		throw new GeometryError('invalid-geometry', 'The field boundary encloses no area (0 acres). Draw at least three corners that are apart.');
+	if (!(acres >= MIN_FIELD_ACRES)) {
+		throw new GeometryError(
+			'invalid-geometry',
+			`The field boundary encloses ${acres.toFixed(2)} acres; a field needs at least ${MIN_FIELD_ACRES} acre. Draw at least three corners that are apart.`
+		);
 	}
 	if (acres > MAX_FIELD_ACRES) {
 		throw new GeometryError(
