@@ -4,7 +4,7 @@ import { isPlantingLane, resolveLanes, sameCrop, type LaneInput, type PlanLane }
 import { driveBackEmptyMessage, type PassUnit, type PlannedPass } from './passes';
 import { checkPlanter } from './planter';
 import type { PlanterSetup } from './types';
-import { feet, inches, laneLabel, unitList } from './words';
+import { feet, feetWide, inches, laneLabel, unitList } from './words';
 
 /** Finer than the sheet's `kind`; the sheet gets the nearest kind through {@link toSheetChecks}. */
 export type CheckProblem =
@@ -155,7 +155,7 @@ function addOverhangChecks(pass: CheckablePass, lanes: PlanLane[], planterWidthF
 		const centredNote = centred.overlapInEachSide > 0 ? ` Centred on ${planting.size === 1 ? 'that lane' : 'those lanes'} it would reach ${inches(centred.overlapInEachSide)} onto each side.` : '';
 		add({
 			severity: 'warn', problem: 'overhang', laneIndex: lane.index, passNumber: pass.number, units, overhangIn,
-			message: `Pass ${pass.number} (from ${pass.startsAt}): the ${feet(planterWidthFt)} planter reaches ${inches(overhangIn)} onto ${laneLabel(lane)}${units.length ? `, where ${unitList(units)} run shut off` : ''}.${centredNote}`
+			message: `Pass ${pass.number} (from ${pass.startsAt}): the ${feetWide(planterWidthFt)} planter reaches ${inches(overhangIn)} onto ${laneLabel(lane)}${units.length ? `, where ${unitList(units)} run shut off` : ''}.${centredNote}`
 		});
 	}
 }
@@ -189,7 +189,7 @@ function addPartialPassCheck(lane: PlanLane, passes: readonly CheckablePass[], b
 	add({
 		severity: 'warn', problem: 'partial_pass', laneIndex: lane.index, passNumber: planting[0].number,
 		units: [...new Set(planting.flatMap((p) => p.units.filter((u) => !u.on).map((u) => u.unit)))].sort((a, b) => a - b),
-		message: `${what}, not a whole number of ${feet(planterWidthFt)} planter widths (${fit.passes} pass${fit.passes === 1 ? '' : 'es'}, the last covering ${Math.round(fit.lastPassCoverage * 100)} %)${offNotes.length ? `: ${offNotes.join('; ')}` : ''}.`
+		message: `${what}, not a whole number of ${feetWide(planterWidthFt)} planter widths (${fit.passes} pass${fit.passes === 1 ? '' : 'es'}, the last covering ${Math.round(fit.lastPassCoverage * 100)} %)${offNotes.length ? `: ${offNotes.join('; ')}` : ''}.`
 	});
 }
 

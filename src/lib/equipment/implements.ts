@@ -3,7 +3,7 @@ import type { SheetCheck } from '../sheet/types';
 import { EquipmentError } from './errors';
 import type { LaneInput, PlanLane } from './lanes';
 import { EQUIPMENT_KIND_LABELS, type Equipment, type EquipmentKind } from './types';
-import { feet, inches, laneLabel } from './words';
+import { feet, feetWide, inches, laneLabel } from './words';
 
 /** An implement as the fit check needs it; an `Equipment` record fits as is. */
 export type ImplementInput = Pick<Equipment, 'name' | 'kind' | 'workingWidthFt'> & Partial<Pick<Equipment, 'id'>>;
@@ -65,7 +65,7 @@ export function implementChecks(
 			throw new EquipmentError('invalid-width', `${tool.name || 'The implement'} has a working width of ${String(width)} ft; enter a width of more than zero feet.`);
 		}
 		const kinds = options.laneKinds?.[tool.kind] ?? IMPLEMENT_LANE_KINDS[tool.kind] ?? [];
-		const what = `${feet(width)} ${(EQUIPMENT_KIND_LABELS[tool.kind] ?? 'implement').toLowerCase()}`;
+		const what = `${feetWide(width)} ${(EQUIPMENT_KIND_LABELS[tool.kind] ?? 'implement').toLowerCase()}`;
 		const fitsList = [...lanes]
 			.filter((lane) => kinds.includes(lane.kind))
 			.sort((a, b) => a.index - b.index)

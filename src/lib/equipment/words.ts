@@ -38,6 +38,11 @@ export function feet(value: number): string {
 	return `${formatNumber(r, Number.isInteger(r) ? 0 : Number.isInteger(r * 10) ? 1 : 2)} ft`;
 }
 
+/** A width used as an adjective: "a 30-ft planter". */
+export function feetWide(value: number): string {
+	return feet(value).replace(' ', '-');
+}
+
 /** Inches rounded to whole inches: 30 in. */
 export function inches(value: number): string {
 	return `${formatNumber(Math.round(value))} in`;
