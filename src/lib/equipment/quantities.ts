@@ -88,8 +88,12 @@ export interface FieldQuantities {
 	notes: string[];
 }
 
-/** Trims floating-point dust before rounding up, so an exact 34 stays 34. */
-const roundUp = (x: number): number => Math.ceil(Number(x.toPrecision(12)));
+/**
+ * Rounds up to whole units after dropping less than 1/10,000 of a unit (8 corn kernels): lane
+ * acres are ellipsoidal and carry noise far below that, which must not buy an extra bag
+ * (80.00000005 ac × 34,000 ÷ 80,000 is 34 units, not 35).
+ */
+const roundUp = (x: number): number => Math.ceil(Number(x.toFixed(4)));
 
 function presetSeedsPerUnit(crop: string): number | null {
 	const c = crop.trim().toLowerCase();
@@ -175,7 +179,7 @@ export function seedAndFertilizerQuantities(
 			seedsPerUnit: estimate.seedsPerUnit,
 			seedsPerUnitBasis: entered !== undefined ? 'entered' : 'common practice',
 			unitsExact: estimate.exactUnits,
-			unitsWhole: estimate.wholeUnits,
+			unitsWhole: roundUp(estimate.exactUnits),
 			bags: roundUp(estimate.exactUnits / unitsPerBag)
 		};
 	});
