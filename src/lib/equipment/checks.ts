@@ -123,11 +123,22 @@ export function checkPasses(passes: readonly CheckablePass[], lanes: readonly (L
 		}
 	}
 
+	// One sweep: which passes plant each lane, and which of its rows.
+	const plantedBy = new Map<number, { passes: CheckablePass[]; rows: Set<number> }>();
+	for (const pass of passes) {
+		for (const u of pass.units) {
+			if (!u.on || u.laneIndex === null) continue;
+			const entry = plantedBy.get(u.laneIndex) ?? { passes: [], rows: new Set<number>() };
+			if (entry.passes[entry.passes.length - 1] !== pass) entry.passes.push(pass);
+			if (u.rowNumber !== null) entry.rows.add(u.rowNumber);
+			plantedBy.set(u.laneIndex, entry);
+		}
+	}
 	for (const lane of planLanes) {
 		if (!isPlantingLane(lane.kind) || lane.rowPositionsIn.length === 0) continue;
 		addSpacingCheck(lane, checked.rowSpacingIn, add);
-		addPartialPassCheck(lane, passes, byIndex, checked.widthFt, add);
-		const planted = new Set(passes.flatMap((p) => p.units.filter((u) => u.on && u.laneIndex === lane.index && u.rowNumber !== null).map((u) => u.rowNumber as number)));
+		const planted = plantedBy.get(lane.index)?.rows ?? new Set<number>();
+		addPartialPassCheck(lane, plantedBy.get(lane.index)?.passes ?? [], byIndex, checked.widthFt, add);
 		const missing = lane.rowPositionsIn.map((_, i) => i + 1).filter((r) => !planted.has(r));
 		if (missing.length > 0) {
 			const carried = checked.units.some((u) => u.seed && sameCrop(u.seed.crop, lane.crop));
@@ -174,8 +185,7 @@ function addSpacingCheck(lane: PlanLane, planterSpacingIn: number, add: (c: Omit
 }
 
 /** A lane whose planting group is not a whole number of planter widths (NRCS 332: strips a multiple of equipment width). */
-function addPartialPassCheck(lane: PlanLane, passes: readonly CheckablePass[], byIndex: Map<number, PlanLane>, planterWidthFt: number, add: (c: Omit<EquipmentCheck, 'kind' | 'unit'>) => void): void {
-	const planting = passes.filter((p) => p.units.some((u) => u.on && u.laneIndex === lane.index));
+function addPartialPassCheck(lane: PlanLane, planting: readonly CheckablePass[], byIndex: Map<number, PlanLane>, planterWidthFt: number, add: (c: Omit<EquipmentCheck, 'kind' | 'unit'>) => void): void {
 	if (planting.length === 0) return;
 	const group = new Set(planting.flatMap((p) => p.units.filter((u) => u.on && u.laneIndex !== null).map((u) => u.laneIndex as number)));
 	const groupWidthFt = [...group].reduce((s, i) => s + (byIndex.get(i)?.widthFt ?? 0), 0);
@@ -203,13 +213,4 @@ function ordinal(n: number): string {
 
 function capital(s: string): string {
 	return s.charAt(0).toUpperCase() + s.slice(1);
-}
-
-/**
- * Checks as the seeding sheet stores them: the sheet's coarser `kind`, first unit only.
- *
- * @example toSheetChecks(checkPasses(plan.passes, plan.lanes, planter))
- */
-export function toSheetChecks(checks: readonly EquipmentCheck[]): SheetCheck[] {
-	return checks.map((c) => ({ severity: c.severity, kind: c.kind, message: c.message, laneIndex: c.laneIndex, unit: c.unit }));
 }

@@ -20,11 +20,10 @@ export {
 	type UnitOffReason,
 	type UnplantedRows
 } from './passes';
-export { checkPasses, toSheetChecks, type CheckProblem, type EquipmentCheck } from './checks';
+export { checkPasses, type CheckProblem, type EquipmentCheck } from './checks';
 export { implementChecks, implementFitChecks, IMPLEMENT_LANE_KINDS, type ImplementFitReport, type ImplementInput, type ImplementLaneFit } from './implements';
 export {
 	seedAndFertilizerQuantities,
-	toSheetQuantities,
 	type FertilizerAnalysis,
 	type FertilizerQuantity,
 	type FieldQuantities,
@@ -32,4 +31,4 @@ export {
 	type QuantityOptions,
 	type VarietyQuantity
 } from './quantities';
-export { toSheetPasses } from './sheet';
+export { toSheetChecks, toSheetPasses, toSheetQuantities } from './sheet';

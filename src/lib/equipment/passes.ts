@@ -207,9 +207,16 @@ function anchorUnit(planter: CheckedPlanter, startsAt: FieldEnd, startSide: 'lef
 	return order.find((u) => u.seed && (crop === null || sameCrop(u.seed.crop, crop)));
 }
 
+/** The lane under a point; lanes are sorted left to right and do not overlap. */
 function laneAt(lanes: PlanLane[], xFt: number): PlanLane | null {
-	for (const lane of lanes) {
-		if (xFt >= lane.offsetFt - EDGE_TOLERANCE_FT && xFt < lane.offsetFt + lane.widthFt - EDGE_TOLERANCE_FT) return lane;
+	let lo = 0;
+	let hi = lanes.length - 1;
+	while (lo <= hi) {
+		const mid = (lo + hi) >> 1;
+		const lane = lanes[mid];
+		if (xFt < lane.offsetFt - EDGE_TOLERANCE_FT) hi = mid - 1;
+		else if (xFt >= lane.offsetFt + lane.widthFt - EDGE_TOLERANCE_FT) lo = mid + 1;
+		else return lane;
 	}
 	return null;
 }

@@ -9,13 +9,11 @@ import {
 	type NitrogenProductPreset
 } from '../agronomy/index';
 import type { LaneAssignment } from '../plans/types';
-import type { SheetQuantity } from '../sheet/types';
 import { EquipmentError } from './errors';
 import { isPlantingLane, resolveLanes, sameCrop, type LaneInput, type PlanLane } from './lanes';
 import type { PassUnit } from './passes';
 import { checkPlanter } from './planter';
 import type { PlanterSetup } from './types';
-import { formatNumber } from './words';
 
 /** A fertilizer product's analysis, when it is not one of the presets. */
 export interface FertilizerAnalysis {
@@ -277,33 +275,4 @@ function lineShare(lineId: string, lane: PlanLane, units: PlanterSetup['rowUnits
 	const carrying = units.filter((u) => u.seed && sameCrop(u.seed.crop, lane.crop));
 	if (carrying.length === 0) return 0;
 	return carrying.filter((u) => (u.fertilizerOn ?? []).includes(lineId)).length / carrying.length;
-}
-
-/**
- * The amounts as the seeding sheet prints them.
- *
- * @example toSheetQuantities(q)[0] // { label: 'Corn — hybrid A', amount: '34.0 units (2,720,000 seeds)', detail: '…' }
- */
-export function toSheetQuantities(q: FieldQuantities): SheetQuantity[] {
-	const seed = q.varieties.map((v): SheetQuantity => {
-		const label = `${v.crop.charAt(0).toUpperCase()}${v.crop.slice(1)} — ${v.variety ?? 'variety not set'}`;
-		const seeds = `${formatNumber(Math.round(v.seeds))} seeds`;
-		if (v.unitsExact === null || v.seedsPerUnit === null) return { label, amount: seeds, detail: `${formatNumber(v.acres, 2)} ac; no seeds-per-unit figure entered for ${v.crop}.` };
-		const bags = v.unitsPerBag === 1 ? '' : `; ${formatNumber(v.bags ?? 0)} bags of ${formatNumber(v.unitsPerBag)} units`;
-		return {
-			label,
-			amount: `${formatNumber(v.unitsExact, 1)} units (${seeds})`,
-			detail: `${formatNumber(v.acres, 2)} ac × ${formatNumber(Math.round(v.averageSeedsPerAcre))} seeds/ac (entered) ÷ ${formatNumber(v.seedsPerUnit)} seeds per unit (${v.seedsPerUnitBasis}); ${formatNumber(v.unitsWhole ?? 0)} whole units${bags}.`
-		};
-	});
-	const fert = q.fertilizer.map((f): SheetQuantity => {
-		const n = f.poundsN === null ? '' : ` · ${formatNumber(f.poundsN, 1)} lb N`;
-		const analysis = f.poundsNPerAcre === null ? 'no analysis entered' : `${formatNumber(f.poundsPerGallon ?? 0, 2)} lb/gal (${f.densityBasis}) × ${formatNumber(f.percentN ?? 0)} % N = ${formatNumber(f.poundsNPerAcre, 2)} lb N/ac`;
-		return {
-			label: f.product ? `${f.product} (${f.lineName})` : f.lineName,
-			amount: `${formatNumber(f.gallons, 1)} gal${n}`,
-			detail: `${formatNumber(f.gallonsPerAcre, 1)} gal/ac (entered) × ${formatNumber(f.acres, 2)} ac where the line is on; ${analysis}.`
-		};
-	});
-	return [...seed, ...fert];
 }

@@ -1,7 +1,10 @@
-import type { SheetPass } from '../sheet/types';
+import type { SheetCheck, SheetPass, SheetQuantity } from '../sheet/types';
+import type { EquipmentCheck } from './checks';
 import type { PlannedPass } from './passes';
 import { checkPlanter, seedLabel } from './planter';
+import type { FieldQuantities } from './quantities';
 import type { PlanterSetup } from './types';
+import { formatNumber } from './words';
 
 /**
  * Passes as the seeding sheet prints them: seed shown only where the unit is on, fertilizer lines
@@ -24,4 +27,42 @@ export function toSheetPasses(passes: readonly PlannedPass[], planter: PlanterSe
 			fertilizer: u.fertilizerOn.map((id) => lines.get(id)?.name ?? id)
 		}))
 	}));
+}
+
+/**
+ * Checks as the seeding sheet stores them: the sheet's coarser `kind`, first unit only.
+ *
+ * @example toSheetChecks(checkPasses(plan.passes, plan.lanes, planter))
+ */
+export function toSheetChecks(checks: readonly EquipmentCheck[]): SheetCheck[] {
+	return checks.map((c) => ({ severity: c.severity, kind: c.kind, message: c.message, laneIndex: c.laneIndex, unit: c.unit }));
+}
+
+/**
+ * The amounts as the seeding sheet prints them.
+ *
+ * @example toSheetQuantities(q)[0] // { label: 'Corn — hybrid A', amount: '34.0 units (2,720,000 seeds)', detail: '…' }
+ */
+export function toSheetQuantities(q: FieldQuantities): SheetQuantity[] {
+	const seed = q.varieties.map((v): SheetQuantity => {
+		const label = `${v.crop.charAt(0).toUpperCase()}${v.crop.slice(1)} — ${v.variety ?? 'variety not set'}`;
+		const seeds = `${formatNumber(Math.round(v.seeds))} seeds`;
+		if (v.unitsExact === null || v.seedsPerUnit === null) return { label, amount: seeds, detail: `${formatNumber(v.acres, 2)} ac; no seeds-per-unit figure entered for ${v.crop}.` };
+		const bags = v.unitsPerBag === 1 ? '' : `; ${formatNumber(v.bags ?? 0)} bags of ${formatNumber(v.unitsPerBag)} units`;
+		return {
+			label,
+			amount: `${formatNumber(v.unitsExact, 1)} units (${seeds})`,
+			detail: `${formatNumber(v.acres, 2)} ac × ${formatNumber(Math.round(v.averageSeedsPerAcre))} seeds/ac (entered) ÷ ${formatNumber(v.seedsPerUnit)} seeds per unit (${v.seedsPerUnitBasis}); ${formatNumber(v.unitsWhole ?? 0)} whole units${bags}.`
+		};
+	});
+	const fert = q.fertilizer.map((f): SheetQuantity => {
+		const n = f.poundsN === null ? '' : ` · ${formatNumber(f.poundsN, 1)} lb N`;
+		const analysis = f.poundsNPerAcre === null ? 'no analysis entered' : `${formatNumber(f.poundsPerGallon ?? 0, 2)} lb/gal (${f.densityBasis}) × ${formatNumber(f.percentN ?? 0)} % N = ${formatNumber(f.poundsNPerAcre, 2)} lb N/ac`;
+		return {
+			label: f.product ? `${f.product} (${f.lineName})` : f.lineName,
+			amount: `${formatNumber(f.gallons, 1)} gal${n}`,
+			detail: `${formatNumber(f.gallonsPerAcre, 1)} gal/ac (entered) × ${formatNumber(f.acres, 2)} ac where the line is on; ${analysis}.`
+		};
+	});
+	return [...seed, ...fert];
 }
