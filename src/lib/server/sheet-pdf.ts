@@ -1,9 +1,9 @@
 // The cab seeding sheet as a printable PDF (US Letter, portrait, large type, black on white).
 import PDFDocument from 'pdfkit';
 import type { SheetData } from '../sheet/types';
-import { cropStyles } from './sheet-pdf/crop-style';
+import { cropStyles, type CropStyle } from './sheet-pdf/crop-style';
 import { BOLD, REGULAR, glyphCoverage, loadSheetFonts } from './sheet-pdf/fonts';
-import { NO_PLANTER, drawHeader, drawNotice, drawStopBanner, sheetTitle } from './sheet-pdf/header';
+import { NO_PLANTER, drawFacts, drawNotice, drawStopBanner, drawTitle, sheetTitle } from './sheet-pdf/header';
 import { drawLaneMap } from './sheet-pdf/lane-map';
 import {
 	drawCautions,
@@ -49,6 +49,7 @@ export async function renderSheetPdf(sheet: SheetData, options: SheetPdfOptions 
 			Title: sheetTitle(sheet),
 			Author: 'Stripwright',
 			Creator: 'Stripwright',
+			Producer: 'Stripwright',
 			CreationDate: sheet.printedAt,
 			ModDate: sheet.printedAt
 		}
@@ -68,10 +69,10 @@ export async function renderSheetPdf(sheet: SheetData, options: SheetPdfOptions 
 		const w = new SheetWriter(doc, glyphCoverage(doc));
 		const styles = cropStyles(sheet.lanes);
 
-		drawHeader(w, sheet, options.timeZone);
+		drawTitle(w, sheet);
 		drawStopBanner(w, sheet.checks);
 		if (!sheet.equipment) drawNotice(w, NO_PLANTER);
-		drawLaneMap(w, sheet, styles, 230);
+		drawTopBlock(w, sheet, styles, options.timeZone);
 		drawLanesTable(w, sheet, styles);
 		if (sheet.equipment) {
 			drawRowUnits(w, sheet.equipment);
@@ -92,6 +93,19 @@ export async function renderSheetPdf(sheet: SheetData, options: SheetPdfOptions 
 	return done;
 }
 
+/** Facts on the left, lane map with its legend on the right. */
+function drawTopBlock(w: SheetWriter, sheet: SheetData, styles: Map<string, CropStyle>, timeZone?: string): void {
+	const factsWidth = 262;
+	const gap = 14;
+	const mapHeight = 210;
+	w.ensure(mapHeight + 80);
+	const top = w.y;
+	const factsBottom = drawFacts(w, sheet, { left: PAGE.left, top, width: factsWidth }, timeZone);
+	const mapLeft = PAGE.left + factsWidth + gap;
+	const mapBottom = drawLaneMap(w, sheet, styles, { x: mapLeft, y: top, width: PAGE.right - mapLeft, height: mapHeight });
+	w.y = Math.max(factsBottom, mapBottom) + 4;
+}
+
 function drawFooters(w: SheetWriter, sheet: SheetData): void {
 	const { start, count } = w.doc.bufferedPageRange();
 	const style = { size: 11 };
@@ -99,7 +113,7 @@ function drawFooters(w: SheetWriter, sheet: SheetData): void {
 	for (let i = start; i < start + count; i++) {
 		w.doc.switchToPage(i);
 		w.doc.lineWidth(0.8).strokeColor('#000000').moveTo(PAGE.left, PAGE.footerY - 4).lineTo(PAGE.right, PAGE.footerY - 4).stroke();
-		w.writeLine(where, PAGE.left, PAGE.footerY, style, PAGE.contentWidth - 110);
+		w.writeLine(w.fit(where, PAGE.contentWidth - 120, style), PAGE.left, PAGE.footerY, style);
 		w.writeLine(`Page ${i - start + 1} of ${count}`, PAGE.right - 110, PAGE.footerY, { ...style, bold: true, align: 'right' }, 110);
 	}
 }

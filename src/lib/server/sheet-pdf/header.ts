@@ -9,10 +9,18 @@ export function sheetTitle(data: Pick<SheetData, 'fieldName' | 'season'>): strin
 	return `Seeding sheet — ${data.fieldName} ${data.season}`;
 }
 
-export function drawHeader(w: SheetWriter, data: SheetData, timeZone?: string): void {
+export function drawTitle(w: SheetWriter, data: SheetData): void {
 	const title: TextStyle = { size: 22, bold: true };
-	w.y += w.write(w.clean(sheetTitle(data)), PAGE.left, w.y, PAGE.contentWidth, title) + 4;
+	w.y += w.write(sheetTitle(data), PAGE.left, w.y, PAGE.contentWidth, title) + 6;
+}
 
+/** Farm, field, season, plan, acres, printed date and preparer as label/value rows in a column. */
+export function drawFacts(
+	w: SheetWriter,
+	data: SheetData,
+	column: { left: number; top: number; width: number },
+	timeZone?: string
+): number {
 	const facts: [string, string][] = [
 		['Farm', data.farmName],
 		['Field', data.fieldName],
@@ -20,28 +28,21 @@ export function drawHeader(w: SheetWriter, data: SheetData, timeZone?: string): 
 		['Plan', data.planName],
 		['Field acres', formatAcres(data.fieldAcres)],
 		['Planted acres', formatAcres(data.plantedAcres)],
-		['Headland', formatFeet(data.headlandFt)],
 		['Lanes', String(data.lanes.length)],
+		['Headland', formatFeet(data.headlandFt)],
 		['Printed', formatPrintedAt(data.printedAt, timeZone)],
 		['Prepared by', data.preparedBy]
 	];
 	const label: TextStyle = { size: 11 };
 	const value: TextStyle = { size: 12, bold: true };
-	const columnWidth = PAGE.contentWidth / 2;
-	const labelWidth = 90;
-	for (let i = 0; i < facts.length; i += 2) {
-		const pair = facts.slice(i, i + 2);
-		const height = Math.max(
-			...pair.map(([, v]) => w.measure(v, columnWidth - labelWidth - 8, value))
-		);
-		pair.forEach(([k, v], j) => {
-			const x = PAGE.left + j * columnWidth;
-			w.write(`${k}:`, x, w.y + 1, labelWidth, label);
-			w.write(v, x + labelWidth, w.y, columnWidth - labelWidth - 8, value);
-		});
-		w.y += height + 3;
+	const labelWidth = 88;
+	const valueWidth = column.width - labelWidth;
+	let y = column.top + 2;
+	for (const [k, v] of facts) {
+		w.write(`${k}:`, column.left, y + 1, labelWidth, label);
+		y += w.write(v, column.left + labelWidth, y, valueWidth, value) + 3;
 	}
-	w.y += 4;
+	return y;
 }
 
 /** Black band with the number of stop-level problems, then each one; nothing when there are none. */

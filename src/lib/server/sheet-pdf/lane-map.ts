@@ -3,7 +3,7 @@
 import type { MultiPolygon, Polygon, Position } from 'geojson';
 import type { SheetData, SheetLane } from '../../sheet/types';
 import { drawSwatch, paintPattern, styleOf, type Box, type CropStyle } from './crop-style';
-import { INK, PAGE, PAPER, SheetWriter, type TextStyle } from './writer';
+import { INK, PAPER, SheetWriter, type TextStyle } from './writer';
 
 type Rings = Position[][];
 
@@ -170,8 +170,14 @@ function scaleBar(proj: Projection): { feet: number; length: number } {
 	return { feet, length: feet * proj.pointsPerFoot };
 }
 
-/** Draws the legend row by row at the cursor. */
-function drawLegend(w: SheetWriter, styles: CropStyle[], hasExclusions: boolean, proj: Projection): void {
+/** Legend in rows inside the column [left, left + width] starting at top; returns the bottom. */
+function drawLegend(
+	w: SheetWriter,
+	styles: CropStyle[],
+	hasExclusions: boolean,
+	proj: Projection,
+	column: { left: number; top: number; width: number }
+): number {
 	const style: TextStyle = { size: 11 };
 	const items: { label: string; width?: number; swatch: (x: number, y: number) => void }[] = styles.map((s) => ({
 		label: `${s.code} = ${s.crop}`,
@@ -199,33 +205,35 @@ function drawLegend(w: SheetWriter, styles: CropStyle[], hasExclusions: boolean,
 			w.doc.lineWidth(1).moveTo(x, y + 2).lineTo(x, y + 11).moveTo(x + scale.length, y + 2).lineTo(x + scale.length, y + 11).stroke();
 		}
 	});
-	let x = PAGE.left;
-	w.ensure(18);
+	let x = column.left;
+	let y = column.top;
 	for (const item of items) {
 		const mark = item.width ?? 13;
 		const width = mark + 5 + w.textWidth(item.label, style) + 16;
-		if (x + width > PAGE.right && x > PAGE.left) {
-			x = PAGE.left;
-			w.y += 17;
-			w.ensure(18);
+		if (x + width - 16 > column.left + column.width && x > column.left) {
+			x = column.left;
+			y += 17;
 		}
-		item.swatch(x, w.y + 1);
-		w.writeLine(item.label, x + mark + 5, w.y, style);
+		item.swatch(x, y + 1);
+		w.writeLine(item.label, x + mark + 5, y, style);
 		x += width;
 	}
-	w.y += 20;
+	return y + 17;
 }
 
-/** Lane map section at the cursor, at most `maxHeight` points tall. */
-export function drawLaneMap(w: SheetWriter, data: SheetData, styles: Map<string, CropStyle>, maxHeight: number): void {
+/**
+ * Lane map with its caption and legend inside `area` (the map at most area.height tall, the
+ * legend below it); does not move the cursor. Returns the bottom of what it drew.
+ */
+export function drawLaneMap(w: SheetWriter, data: SheetData, styles: Map<string, CropStyle>, area: Box): number {
 	const { doc } = w;
-	w.heading('Lane map', Math.min(maxHeight, 160));
-	const frame: Box = { x: PAGE.left, y: w.y, width: PAGE.contentWidth, height: Math.max(120, Math.min(maxHeight, PAGE.bottom - w.y - 40)) };
-	const inner: Box = { x: frame.x + 24, y: frame.y + 16, width: frame.width - 48, height: frame.height - 32 };
+	w.writeLine('Lane map', area.x, area.y, { size: 12, bold: true });
+	const frame: Box = { x: area.x, y: area.y + 17, width: area.width, height: area.height };
+	const inner: Box = { x: frame.x + 20, y: frame.y + 16, width: frame.width - 40, height: frame.height - 32 };
 	const proj = project(data, inner);
 	if (!proj) {
-		w.paragraph('The field has no shape to draw.');
-		return;
+		w.write('The field has no shape to draw.', frame.x, frame.y, frame.width, { size: 11 });
+		return frame.y + 16;
 	}
 	frame.height = proj.height + 32;
 
@@ -275,6 +283,9 @@ export function drawLaneMap(w: SheetWriter, data: SheetData, styles: Map<string,
 	doc.restore();
 
 	doc.lineWidth(0.8).strokeColor(INK).rect(frame.x, frame.y, frame.width, frame.height).stroke();
-	w.y = frame.y + frame.height + 6;
-	drawLegend(w, [...new Set(byCrop.keys())], data.exclusions.length > 0, proj);
+	return drawLegend(w, [...byCrop.keys()], data.exclusions.length > 0, proj, {
+		left: frame.x,
+		top: frame.y + frame.height + 5,
+		width: frame.width
+	});
 }

@@ -3,7 +3,7 @@ import type { SheetData } from '../../sheet/types';
 import { drawSwatch, styleOf, type CropStyle } from './crop-style';
 import { checkText } from './header';
 import { drawTable, type TableCell } from './table';
-import { formatAcres, formatFeet, formatPopulation, lanesLabel } from './text';
+import { formatAcres, formatFeet, formatPopulation, laneNumbers, lanesLabel } from './text';
 import { BODY, INK, PAGE, PAPER, SheetWriter, type TextStyle } from './writer';
 
 type Equipment = NonNullable<SheetData['equipment']>;
@@ -121,18 +121,18 @@ export function drawPasses(w: SheetWriter, data: SheetData): void {
 		.map((pass): (TableCell | string)[] => [
 			{ text: `Pass ${pass.number}`, bold: true, mark: { size: box, draw: (x, y) => w.checkbox(x, y, box) } },
 			{ text: `from ${pass.startsAt}`, bold: true },
-			lanesLabel(pass.laneIndexes),
+			laneNumbers(pass.laneIndexes) || 'none',
 			withoutLanePrefix(pass.summary, lanesLabel(pass.laneIndexes)),
 			{ text: String(pass.unitsOn), bold: true }
 		]);
 	drawTable(
 		w,
 		[
-			{ header: 'Done / Pass', width: 98 },
+			{ header: 'Done / Pass', width: 90 },
 			{ header: 'Start', width: 58 },
-			{ header: 'Lanes', width: 82 },
-			{ header: 'What the planter does', width: 250 },
-			{ header: 'Units on', width: 52, align: 'right' }
+			{ header: 'Lanes', width: 64 },
+			{ header: 'What the planter does', width: 272 },
+			{ header: 'Units on', width: 56, align: 'right' }
 		],
 		rows,
 		{ title: 'Passes, in driving order', size: 13, headerSize: 11, padY: 5 }
@@ -193,10 +193,10 @@ export function drawQuantities(w: SheetWriter, data: SheetData): void {
 export function drawSignOff(w: SheetWriter): void {
 	const label: TextStyle = { size: 13, bold: true };
 	const caption: TextStyle = { size: 11 };
-	w.ensure(66);
-	w.gap(12);
+	w.ensure(60);
+	w.gap(10);
 	w.paragraph('Row units checked before the first pass:', label);
-	const lineY = w.y + 26;
+	const lineY = w.y + 24;
 	const nameEnd = PAGE.left + 280;
 	const dateStart = nameEnd + 70;
 	const dateEnd = PAGE.right - 70;

@@ -1,5 +1,5 @@
 // Tables that flow across pages, repeating their title and header row on each new page.
-import { INK, PAGE, PAPER, ROW_TINT, SheetWriter, type TextStyle } from './writer';
+import { INK, PAGE, ROW_TINT, SheetWriter, type TextStyle } from './writer';
 
 export interface TableColumn {
 	header: string;
@@ -44,6 +44,7 @@ export function drawTable(w: SheetWriter, columns: TableColumn[], rows: Cell[][]
 	const headerHeight =
 		Math.max(...columns.map((c, i) => cellHeight(i, { text: c.header }, headerStyle))) + 2 * padY;
 
+	let headerBottom = -1;
 	const drawHeader = () => {
 		const top = w.y;
 		columns.forEach((c, i) => {
@@ -52,6 +53,7 @@ export function drawTable(w: SheetWriter, columns: TableColumn[], rows: Cell[][]
 		w.y = top + headerHeight;
 		w.doc.lineWidth(1.5).strokeColor(INK).moveTo(PAGE.left, w.y).lineTo(PAGE.right, w.y).stroke();
 		w.y += 1;
+		headerBottom = w.y;
 	};
 
 	const continued = () => {
@@ -71,7 +73,9 @@ export function drawTable(w: SheetWriter, columns: TableColumn[], rows: Cell[][]
 			const height = rowHeights[r];
 			w.ensure(height);
 			const top = w.y;
-			w.doc.rect(PAGE.left, top, PAGE.contentWidth, height).fill(r % 2 === 1 ? ROW_TINT : PAPER);
+			if (r % 2 === 1) w.doc.rect(PAGE.left, top, PAGE.contentWidth, height).fill(ROW_TINT);
+			// the rule above each row is drawn after its tint, so every rule keeps its full weight
+			if (top !== headerBottom) w.doc.lineWidth(0.5).strokeColor(INK).moveTo(PAGE.left, top).lineTo(PAGE.right, top).stroke();
 			row.forEach((raw, i) => {
 				const cell = asCell(raw);
 				let x = xs[i] + padX;
@@ -86,8 +90,8 @@ export function drawTable(w: SheetWriter, columns: TableColumn[], rows: Cell[][]
 				});
 			});
 			w.y = top + height;
-			w.doc.lineWidth(0.5).strokeColor(INK).moveTo(PAGE.left, w.y).lineTo(PAGE.right, w.y).stroke();
 		});
 	});
+	w.doc.lineWidth(0.5).strokeColor(INK).moveTo(PAGE.left, w.y).lineTo(PAGE.right, w.y).stroke();
 	w.y += 4;
 }

@@ -42,6 +42,8 @@ export function sanitizeText(text: unknown, hasGlyph: (codePoint: number) => boo
 	for (const char of source) {
 		const plain = PLAIN_FORMS[char];
 		if (plain !== undefined) {
+			// "3½" reads "3 1/2", not "31/2"
+			if (/^\d\//.test(plain) && /\d$/.test(out)) out += ' ';
 			out += plain;
 			continue;
 		}

@@ -82,6 +82,15 @@ export class SheetWriter {
 		});
 	}
 
+	/** The text cut with "…" so that it fits in width on one line. */
+	fit(text: string, width: number, style: TextStyle): string {
+		const clean = this.clean(text);
+		if (this.textWidth(clean, style) <= width) return clean;
+		const chars = [...clean];
+		while (chars.length > 0 && this.textWidth(`${chars.join('')}…`, style) > width) chars.pop();
+		return `${chars.join('').trimEnd()}…`;
+	}
+
 	/** Starts a new page when fewer than `height` points remain; returns true if it did. */
 	ensure(height: number): boolean {
 		if (this.y + height <= PAGE.bottom || this.y <= PAGE.top) return false;
@@ -112,14 +121,14 @@ export class SheetWriter {
 
 	/** Section heading kept on the same page as the next `keepWith` points of content. */
 	heading(text: string, keepWith = 40): void {
-		const style: TextStyle = { size: 15, bold: true };
+		const style: TextStyle = { size: 14, bold: true };
 		const height = this.measure(text, PAGE.contentWidth, style);
 		this.ensure(height + 6 + keepWith);
-		if (this.y > PAGE.top) this.gap(10);
+		if (this.y > PAGE.top) this.gap(8);
 		this.write(text, PAGE.left, this.y, PAGE.contentWidth, style);
-		this.y += height + 2;
+		this.y += height + 1;
 		this.doc.lineWidth(1.5).strokeColor(INK).moveTo(PAGE.left, this.y).lineTo(PAGE.right, this.y).stroke();
-		this.y += 6;
+		this.y += 5;
 	}
 
 	/** Wrapped paragraph at the cursor, moved whole to the next page if it does not fit. */
