@@ -49,6 +49,8 @@ export function checkPlanter(planter: PlanterSetup): CheckedPlanter {
  * Distance of a row unit from the field-left edge of the planter, feet. Units are numbered from
  * the operator's left; driving B→A the operator's left is the field's right, so unit 1 lands at
  * the far (right) side of the planter's footprint.
+ *
+ * @example unitOffsetFt(1, 16, 30, 'A') // 1.25; unitOffsetFt(1, 16, 30, 'B') // 38.75
  */
 export function unitOffsetFt(unit: number, unitCount: number, rowSpacingIn: number, startsAt: FieldEnd): number {
 	const fromOperatorLeftFt = ((unit - 0.5) * rowSpacingIn) / 12;
