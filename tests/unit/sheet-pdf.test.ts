@@ -240,6 +240,14 @@ describe('renderSheetPdf: edge cases', () => {
 		expect(parsed.flat).toContain('Page 1 of 1');
 	});
 
+	it('skips broken lane shapes on the map but still lists the lanes', async () => {
+		const sheet = buildSheet({ lanes: 3 });
+		sheet.lanes[0].geometry = { type: 'MultiPolygon', coordinates: [] };
+		sheet.lanes[1].geometry = { type: 'Polygon', coordinates: [[[NaN, 43.9], [-94.2, NaN], [-94.2, 43.9]]] };
+		const parsed = await parsePdf(await renderSheetPdf(sheet));
+		expectEveryLaneLine(parsed, sheet);
+	});
+
 	it('says "1 problem" for a single stop check', async () => {
 		const sheet = buildSheet({ lanes: 2 });
 		sheet.checks = sheet.checks.slice(0, 1);

@@ -48,6 +48,8 @@ function project(data: SheetData, box: Box): Projection | null {
 function tracePath(doc: PDFKit.PDFDocument, g: Polygon | MultiPolygon, proj: Projection): void {
 	for (const rings of polygonsOf(g)) {
 		for (const ring of rings) {
+			// a ring with a broken coordinate is left out rather than written into the PDF
+			if (ring.length < 3 || !ring.every((p) => Number.isFinite(p[0]) && Number.isFinite(p[1]))) continue;
 			ring.forEach((p, i) => {
 				const [x, y] = proj.point(p);
 				if (i === 0) doc.moveTo(x, y);

@@ -115,7 +115,7 @@ export function drawPasses(w: SheetWriter, data: SheetData): void {
 		w.paragraph('No passes: the planter does not cover any lane.', { size: 13, bold: true });
 		return;
 	}
-	const box = 14;
+	const box = 15;
 	const rows = [...data.passes]
 		.sort((a, b) => a.number - b.number)
 		.map((pass): (TableCell | string)[] => [
@@ -147,25 +147,34 @@ export function drawChecks(w: SheetWriter, data: SheetData): void {
 	}
 	const ordered = [...data.checks].sort((a, b) => (a.severity === b.severity ? 0 : a.severity === 'stop' ? -1 : 1));
 	const tagWidth = 58;
-	for (const check of ordered) {
-		const stop = check.severity === 'stop';
-		const style: TextStyle = { size: 12, bold: stop };
-		const text = checkText(check);
-		const height = Math.max(w.measure(text, PAGE.contentWidth - tagWidth - 8, style), 16) + 4;
-		w.ensure(height);
-		const tag = stop ? 'STOP' : 'CHECK';
-		if (stop) w.doc.rect(PAGE.left, w.y, tagWidth - 6, 16).fill(INK);
-		else w.doc.lineWidth(1.2).strokeColor(INK).rect(PAGE.left, w.y, tagWidth - 6, 16).stroke();
-		w.writeLine(tag, PAGE.left, w.y + 2, { size: 11, bold: true, align: 'center', color: stop ? PAPER : INK }, tagWidth - 6);
-		w.write(text, PAGE.left + tagWidth, w.y + 1, PAGE.contentWidth - tagWidth - 8, style);
-		w.y += height;
-	}
+	w.withPageStarter(
+		() => w.continuedTitle('Checks'),
+		() => {
+			for (const check of ordered) {
+				const stop = check.severity === 'stop';
+				const style: TextStyle = { size: 12, bold: stop };
+				const text = checkText(check);
+				const height = Math.max(w.measure(text, PAGE.contentWidth - tagWidth - 8, style), 16) + 4;
+				w.ensure(height);
+				const tag = stop ? 'STOP' : 'CHECK';
+				if (stop) w.doc.rect(PAGE.left, w.y, tagWidth - 6, 16).fill(INK);
+				else w.doc.lineWidth(1.2).strokeColor(INK).rect(PAGE.left, w.y, tagWidth - 6, 16).stroke();
+				const tagStyle: TextStyle = { size: 11, bold: true, align: 'center', color: stop ? PAPER : INK };
+				w.writeLine(tag, PAGE.left, w.y + 2, tagStyle, tagWidth - 6);
+				w.write(text, PAGE.left + tagWidth, w.y + 1, PAGE.contentWidth - tagWidth - 8, style);
+				w.y += height;
+			}
+		}
+	);
 }
 
 function drawList(w: SheetWriter, title: string, items: string[], empty: string): void {
 	w.heading(title);
 	if (items.length === 0) w.paragraph(empty);
-	for (const item of items) w.paragraph(`• ${item}`, { size: 12 }, 4);
+	w.withPageStarter(
+		() => w.continuedTitle(title),
+		() => items.forEach((item) => w.paragraph(`• ${item}`, { size: 12 }, 4))
+	);
 }
 
 export function drawHazards(w: SheetWriter, data: SheetData): void {

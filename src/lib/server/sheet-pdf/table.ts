@@ -57,8 +57,7 @@ export function drawTable(w: SheetWriter, columns: TableColumn[], rows: Cell[][]
 	};
 
 	const continued = () => {
-		w.write(`${options.title} (continued)`, PAGE.left, w.y, PAGE.contentWidth, { size: 12, bold: true });
-		w.y += w.measure(options.title, PAGE.contentWidth, { size: 12, bold: true }) + 4;
+		w.continuedTitle(options.title);
 		drawHeader();
 	};
 

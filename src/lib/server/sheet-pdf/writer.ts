@@ -115,6 +115,12 @@ export class SheetWriter {
 		}
 	}
 
+	/** Small "… (continued)" title at the top of a page a section runs onto. */
+	continuedTitle(title: string): void {
+		const style: TextStyle = { size: 12, bold: true };
+		this.y += this.write(`${title} (continued)`, PAGE.left, this.y, PAGE.contentWidth, style) + 4;
+	}
+
 	gap(points: number): void {
 		this.y = Math.min(this.y + points, PAGE.bottom);
 	}
@@ -142,6 +148,7 @@ export class SheetWriter {
 
 	/** Empty square to tick by hand. */
 	checkbox(x: number, y: number, size: number): void {
-		this.doc.lineWidth(1.5).strokeColor(INK).rect(x, y, size, size).stroke();
+		this.doc.lineWidth(1.5).rect(x, y, size, size).fillAndStroke(PAPER, INK);
+		this.doc.fillColor(INK);
 	}
 }
