@@ -1,7 +1,8 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { PDFParse } from 'pdf-parse';
 import { NO_PLANTER, renderSheetPdf } from '../../src/lib/server/sheet-pdf';
-import { sanitizeText } from '../../src/lib/server/sheet-pdf/text';
+import { laneNumbers, sanitizeText } from '../../src/lib/server/sheet-pdf/text';
+import { withoutLanePrefix } from '../../src/lib/server/sheet-pdf/sections';
 import { cropStyles } from '../../src/lib/server/sheet-pdf/crop-style';
 import type { SheetData } from '../../src/lib/sheet/types';
 import { buildSheet } from '../fixtures/sheet/sheet-data';
@@ -253,6 +254,16 @@ describe('renderSheetPdf: edge cases', () => {
 		sheet.checks = sheet.checks.slice(0, 1);
 		const parsed = await parsePdf(await renderSheetPdf(sheet));
 		expect(parsed.pages[0]).toContain('STOP: 1 problem to fix before planting');
+	});
+
+	it('drops a summary\'s lane prefix only when it names the same lanes as the Lanes column', () => {
+		expect(withoutLanePrefix('Lanes 1–2: units 1–8 corn', [0, 1])).toBe('units 1–8 corn');
+		expect(withoutLanePrefix('Lane 4: units 1–8 corn', [3])).toBe('units 1–8 corn');
+		expect(withoutLanePrefix('Lanes 1, 2, 3, 6: units 1–8 corn', [0, 1, 2, 5])).toBe('units 1–8 corn');
+		expect(withoutLanePrefix('Lanes 1–2: units 1–8 corn', [0, 1, 2])).toBe('Lanes 1–2: units 1–8 corn');
+		expect(withoutLanePrefix('Nothing planted; units 1–16 off', [4])).toBe('Nothing planted; units 1–16 off');
+		expect(withoutLanePrefix('Lanes 1–2:', [0, 1])).toBe('Lanes 1–2:');
+		expect(laneNumbers([5, 0, 1, 2, 2])).toBe('1–3, 6');
 	});
 
 	it('gives each crop its own letter code and look', () => {

@@ -3,7 +3,7 @@ import type { SheetData } from '../../sheet/types';
 import { drawSwatch, styleOf, type CropStyle } from './crop-style';
 import { checkText } from './header';
 import { drawTable, type TableCell } from './table';
-import { formatAcres, formatFeet, formatPopulation, laneNumbers, lanesLabel } from './text';
+import { formatAcres, formatFeet, formatPopulation, laneNumbers } from './text';
 import { BODY, INK, PAGE, PAPER, SheetWriter, type TextStyle } from './writer';
 
 type Equipment = NonNullable<SheetData['equipment']>;
@@ -103,10 +103,22 @@ export function drawRowUnits(w: SheetWriter, equipment: Equipment): void {
 	);
 }
 
-/** "Lanes 1–2: units 1–8 corn" → "units 1–8 corn" when the Lanes column already says "Lanes 1–2". */
-function withoutLanePrefix(summary: string, lanes: string): string {
-	const prefix = `${lanes}:`;
-	return summary.startsWith(prefix) && summary.length > prefix.length ? summary.slice(prefix.length).trim() : summary;
+/**
+ * "Lanes 1–2: units 1–8 corn" → "units 1–8 corn" when the prefix names exactly the lanes the
+ * Lanes column already shows; any other summary is printed whole.
+ */
+export function withoutLanePrefix(summary: string, laneIndexes: number[]): string {
+	const match = /^Lanes? ([\d,\s–-]+):\s*/.exec(summary);
+	if (!match || match[0].length === summary.length) return summary;
+	const named = new Set<number>();
+	for (const part of match[1].split(',')) {
+		const [from, to = from] = part.trim().split(/[–-]/).map(Number);
+		if (!Number.isInteger(from) || !Number.isInteger(to) || to < from || to - from > 10_000) return summary;
+		for (let n = from; n <= to; n++) named.add(n);
+	}
+	const shown = new Set(laneIndexes.map((i) => i + 1));
+	const same = named.size === shown.size && [...named].every((n) => shown.has(n));
+	return same ? summary.slice(match[0].length) : summary;
 }
 
 export function drawPasses(w: SheetWriter, data: SheetData): void {
@@ -122,7 +134,7 @@ export function drawPasses(w: SheetWriter, data: SheetData): void {
 			{ text: `Pass ${pass.number}`, bold: true, mark: { size: box, draw: (x, y) => w.checkbox(x, y, box) } },
 			{ text: `from ${pass.startsAt}`, bold: true },
 			laneNumbers(pass.laneIndexes) || 'none',
-			withoutLanePrefix(pass.summary, lanesLabel(pass.laneIndexes)),
+			withoutLanePrefix(pass.summary, pass.laneIndexes),
 			{ text: String(pass.unitsOn), bold: true }
 		]);
 	drawTable(

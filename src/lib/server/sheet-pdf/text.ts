@@ -89,12 +89,6 @@ export function laneNumbers(indexes: number[]): string {
 	return parts.join(', ');
 }
 
-/** "Lanes 1–2" / "Lane 4" / "no lane" */
-export function lanesLabel(indexes: number[]): string {
-	if (indexes.length === 0) return 'no lane';
-	return `${indexes.length === 1 ? 'Lane' : 'Lanes'} ${laneNumbers(indexes)}`;
-}
-
 /** "Apr 12, 2026, 6:30 AM CDT" in the given time zone (the server's own when none is given). */
 export function formatPrintedAt(date: Date, timeZone?: string): string {
 	return new Intl.DateTimeFormat('en-US', {
