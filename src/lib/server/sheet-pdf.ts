@@ -97,7 +97,7 @@ export async function renderSheetPdf(sheet: SheetData, options: SheetPdfOptions 
 function drawTopBlock(w: SheetWriter, sheet: SheetData, styles: Map<string, CropStyle>, timeZone?: string): void {
 	const factsWidth = 262;
 	const gap = 14;
-	const mapHeight = 210;
+	const mapHeight = 180;
 	w.ensure(mapHeight + 80);
 	const top = w.y;
 	const factsBottom = drawFacts(w, sheet, { left: PAGE.left, top, width: factsWidth }, timeZone);

@@ -65,7 +65,9 @@ export function drawTable(w: SheetWriter, columns: TableColumn[], rows: Cell[][]
 		(row) => Math.max(...row.map((cell, i) => cellHeight(i, asCell(cell), bodyStyle))) + 2 * padY
 	);
 
-	w.heading(options.title, headerHeight + (rowHeights[0] ?? 0) + 4);
+	// a short table is kept whole on one page; a long one only keeps its first row with the header
+	const wholeHeight = headerHeight + rowHeights.reduce((sum, h) => sum + h, 0) + 4;
+	w.heading(options.title, wholeHeight <= 200 ? wholeHeight : headerHeight + (rowHeights[0] ?? 0) + 4);
 	drawHeader();
 	w.withPageStarter(continued, () => {
 		rows.forEach((row, r) => {

@@ -129,7 +129,7 @@ export class SheetWriter {
 	heading(text: string, keepWith = 40): void {
 		const style: TextStyle = { size: 14, bold: true };
 		const height = this.measure(text, PAGE.contentWidth, style);
-		this.ensure(height + 6 + keepWith);
+		this.ensure(8 + height + 6 + keepWith);
 		if (this.y > PAGE.top) this.gap(8);
 		this.write(text, PAGE.left, this.y, PAGE.contentWidth, style);
 		this.y += height + 1;
