@@ -1,0 +1,105 @@
+import { expect, test } from '@playwright/test';
+import { DEMO_FARM_ID, apiSignIn, recordingContext } from './helpers';
+
+const NORTH80 = `/farms/${DEMO_FARM_ID}/fields/5a1e0000-0000-4000-8000-0000000001f1`;
+
+test('open the demo field, change the pattern, watch lanes and acres update, save, plan next season, scroll back', async ({ browser }) => {
+	const { context, hosts } = await recordingContext(browser);
+	const page = await context.newPage();
+	await apiSignIn(page.request, 'owner');
+	await page.goto(NORTH80);
+	await page.getByTestId('field-seasons').getByRole('link', { name: '2027' }).click();
+	await expect(page.getByRole('heading', { level: 1 })).toHaveText('North 80 · 2027 plan');
+	const summary = page.getByTestId('layout-summary');
+	await expect(summary).toContainText('63 lanes');
+	const planted = await page.getByTestId('planted-acres').textContent();
+
+	// 8/8 → 12/12: the repeat goes from 40 ft to 60 ft, so fewer, wider lanes on the same acres.
+	await page.getByLabel('Start from a preset').selectOption({ label: '12-row corn / 12-row soybean, 30-in rows' });
+	await page.getByRole('button', { name: 'Use preset' }).click();
+	await expect(summary).toContainText('42 lanes');
+	await expect(page.getByTestId('planted-acres')).toHaveText(planted!);
+
+	// A bigger headland takes acres away, live.
+	await page.getByLabel('Headland (ft)').fill('80');
+	await expect(page.getByTestId('planted-acres')).not.toHaveText(planted!);
+	const lessPlanted = parseFloat((await page.getByTestId('planted-acres').textContent())!);
+	expect(lessPlanted).toBeLessThan(parseFloat(planted!));
+	// 80 ft in from each side takes the edge lanes away: 1,320 − 160 ft = 1,160 ft ≈ 38.7 lanes of 30 ft → 40 pieces.
+	await expect(summary).toContainText('40 lanes');
+
+	// A pattern lane without row spacing: the message sits beside the pattern and the last good preview stays.
+	await page.getByRole('spinbutton', { name: 'Row spacing (in)' }).first().fill('');
+	await page.getByRole('spinbutton', { name: 'Row spacing (in)' }).first().blur();
+	await expect(page.getByTestId('pattern-error')).toContainText('Lane 1 of the pattern');
+	await expect(summary).toContainText('40 lanes');
+	await page.getByRole('spinbutton', { name: 'Row spacing (in)' }).first().fill('30');
+	await page.getByRole('spinbutton', { name: 'Row spacing (in)' }).first().blur();
+	await expect(page.getByTestId('pattern-error')).toHaveCount(0);
+
+	await page.getByRole('button', { name: 'Save 2027 plan' }).click();
+	await expect(page.getByRole('status').filter({ hasText: 'Saved: version 3' })).toBeVisible();
+
+	// Plan 2028 one lane over and read the rotation matrix.
+	await page.getByRole('button', { name: 'Plan 2028 from this' }).click();
+	const next = page.getByTestId('next-season');
+	await expect(next).toContainText('one lane: 30.00 ft');
+	const matrix = next.getByTestId('rotation-matrix');
+	await expect(matrix.getByRole('row', { name: /corn soybean/ })).toBeVisible();
+	await expect(matrix.getByRole('row', { name: /soybean corn/ })).toBeVisible();
+	await expect(matrix.getByRole('row', { name: /corn corn/ })).toHaveCount(0);
+	await next.getByRole('link', { name: 'Open the 2028 plan' }).click();
+	await expect(page.getByRole('heading', { level: 1 })).toHaveText('North 80 · 2028 plan');
+
+	// Scroll back to 2025: the layout as it was, on the boundary it was laid on.
+	await page.getByTestId('season-timeline').getByRole('link', { name: '2025' }).click();
+	await expect(page.getByRole('heading', { level: 1 })).toHaveText('North 80 · 2025 plan');
+	await expect(summary).toContainText('63 lanes');
+	await expect(page.getByText('This plan was laid out on boundary version 2')).toHaveCount(0);
+	expect([...hosts]).toEqual(['127.0.0.1']);
+	await context.close();
+});
+
+test('a stale save gets 409 and offers to reload or compare', async ({ browser }) => {
+	const a = await browser.newContext();
+	const b = await browser.newContext();
+	const pa = await a.newPage();
+	const pb = await b.newPage();
+	await apiSignIn(pa.request, 'owner');
+	await apiSignIn(pb.request, 'manager');
+	const url = `/farms/${DEMO_FARM_ID}/fields/5a1e0000-0000-4000-8000-0000000001f3/plans/2026`;
+	await pa.goto(url);
+	await pb.goto(url);
+	await pa.getByLabel('Headland (ft)').fill('35');
+	await expect(pa.getByTestId('layout-summary')).not.toContainText('updating');
+	await pa.getByRole('button', { name: 'Save 2026 plan' }).click();
+	await expect(pa.getByRole('status').filter({ hasText: 'Saved' })).toBeVisible();
+
+	await pb.getByLabel('Headland (ft)').fill('50');
+	await pb.getByRole('button', { name: 'Save 2026 plan' }).click();
+	const conflict = pb.getByTestId('conflict');
+	await expect(conflict).toContainText('Someone else saved this plan after you opened it');
+	await conflict.getByRole('button', { name: 'Compare' }).click();
+	await expect(conflict.getByRole('row', { name: /Headland 35 ft 50 ft/ })).toBeVisible();
+	await conflict.getByRole('button', { name: 'Reload their version' }).click();
+	await expect(pb.getByLabel('Headland (ft)')).toHaveValue('35');
+	await a.close();
+	await b.close();
+});
+
+test('compare two seasons side by side and overlaid', async ({ page }) => {
+	await apiSignIn(page.request, 'advisor');
+	await page.goto(`${NORTH80}/compare?a=2025&b=2026`);
+	await expect(page.getByRole('heading', { level: 1 })).toHaveText('Compare 2025 and 2026 · North 80');
+	await expect(page.getByRole('region', { name: 'Lanes in 2025' })).toBeVisible();
+	await expect(page.getByRole('region', { name: 'Lanes in 2026' })).toBeVisible();
+	const matrix = page.getByTestId('rotation-matrix');
+	await expect(matrix).toContainText('corn');
+	await expect(matrix.getByRole('row', { name: /corn corn/ })).toHaveCount(0);
+	await page.getByRole('button', { name: 'Overlaid' }).click();
+	await expect(page.getByRole('region', { name: '2026 over 2025' })).toBeVisible();
+	// Advisors read plans but cannot edit them.
+	await page.goto(`${NORTH80}/plans/2026`);
+	await expect(page.getByRole('button', { name: /Save 2026 plan/ })).toHaveCount(0);
+	await expect(page.getByTestId('lane-table')).toBeVisible();
+});
