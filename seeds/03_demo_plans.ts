@@ -90,10 +90,10 @@ function hybridBlock(lanes: { index: number; crop: string }[]): LaneAssignment[]
 
 export async function seed(knex: Knex) {
 	const owner = DEMO_PEOPLE[0];
-	const farm = await knex('farms').where({ id: DEMO_FARM_ID }).first('id', 'name', 'units');
+	const farm = await knex('farms').where({ id: DEMO_FARM_ID }).first('id', 'name', 'units', 'time_zone');
 	const access: FarmAccess = {
 		user: { id: owner.id, email: `owner@demo.stripwright.test`, name: owner.name },
-		farm: { id: farm.id, name: farm.name, units: farm.units },
+		farm: { id: farm.id, name: farm.name, units: farm.units, timeZone: farm.time_zone },
 		role: 'owner',
 		fieldScope: null,
 		can: () => true

@@ -18,6 +18,10 @@ export interface FertilizerLine {
 	name: string; // e.g. "Nitrogen (UAN 32 %)"
 	product: string | null;
 	forCrops: string[]; // e.g. ['corn']; a line that is on over any other crop is a misplumbing
+	/** The farmer's entered rate and analysis, for quantities (never a recommendation). */
+	gallonsPerAcre?: number | null;
+	poundsPerGallon?: number | null;
+	percentN?: number | null;
 }
 
 export interface RowUnit {

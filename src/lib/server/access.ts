@@ -6,7 +6,7 @@ import type { SessionUser } from './auth';
 
 export interface FarmAccess {
 	user: SessionUser;
-	farm: { id: string; name: string; units: 'us' | 'metric' };
+	farm: { id: string; name: string; units: 'us' | 'metric'; timeZone: string };
 	role: Role;
 	/** Field ids a viewer may read; null = every field of the farm. */
 	fieldScope: string[] | null;
@@ -45,7 +45,7 @@ export async function requireMember(event: Event, farmId: string | undefined, ca
 		.join('farms as f', 'f.id', 'm.farm_id')
 		.where({ 'm.farm_id': farmId, 'm.user_id': user.id })
 		.whereNull('f.deleted_at')
-		.first('f.id', 'f.name', 'f.units', 'm.role', 'm.field_scope');
+		.first('f.id', 'f.name', 'f.units', 'f.time_zone', 'm.role', 'm.field_scope');
 	if (!row) error(404, { message: FARM_NOT_FOUND, code: 'not_found' });
 	const role = row.role as Role;
 	if (!can(role, capability)) {
@@ -56,7 +56,7 @@ export async function requireMember(event: Event, farmId: string | undefined, ca
 	}
 	return {
 		user,
-		farm: { id: row.id, name: row.name, units: row.units },
+		farm: { id: row.id, name: row.name, units: row.units, timeZone: row.time_zone },
 		role,
 		fieldScope: role === 'viewer' ? (row.field_scope ?? []) : null,
 		can: (c) => can(role, c)

@@ -1,0 +1,19 @@
+import type { RequestHandler } from './$types';
+import { api } from '$lib/server/api';
+import { requireMember } from '$lib/server/access';
+import { loadSheet } from '$lib/server/sheet';
+import { renderSheetPdf } from '$lib/server/sheet-pdf';
+import { parseSeason } from '$lib/server/season';
+
+export const GET: RequestHandler = api(async (event) => {
+	const access = await requireMember(event, event.params.farmId, 'read');
+	const sheet = await loadSheet(access, event.params.fieldId, parseSeason(event.params.season), {
+		planterId: event.url.searchParams.get('planter'),
+		variant: event.url.searchParams.get('variant') ?? undefined
+	});
+	const pdf = await renderSheetPdf(sheet, { timeZone: access.farm.timeZone });
+	const filename = `seeding-sheet-${sheet.fieldName.replace(/[^A-Za-z0-9]+/g, '-')}-${sheet.season}.pdf`;
+	return new Response(new Uint8Array(pdf), {
+		headers: { 'content-type': 'application/pdf', 'content-disposition': `inline; filename="${filename}"`, 'cache-control': 'no-store' }
+	});
+});
