@@ -104,6 +104,8 @@ export async function readEquipmentForm(request: Request): Promise<ParsedEquipme
 		for (const issue of parsed.error.issues) {
 			const key = issue.path.length ? issue.path.join('.') : '_';
 			if (errors[key]) continue;
+			// A planter's width comes from its units; when the setup is missing, say that, not "enter a width".
+			if (key === 'workingWidthFt' && uses.includes('setup')) continue;
 			// zod's own words for a missing or non-numeric number name types, not the farmer's input.
 			const last = String(issue.path[issue.path.length - 1] ?? '');
 			const words = issue.code === 'invalid_type' && issue.expected === 'number' ? SETUP_NUMBER_WORDS[last] : undefined;
