@@ -1,19 +1,13 @@
 import { describe, expect, it } from 'vitest';
-import type { Polygon } from 'geojson';
 import { createField, updateField } from '$lib/server/fields';
 import { adoptVariant, getPlan, listPlans, planNextSeason, savePlan } from '$lib/server/plans';
 import { requireMember } from '$lib/server/access';
 import { db } from '$lib/server/db';
 import { fakeEvent, makeFarmWithTeam, thrown } from './helpers';
 import type { LaneSpec } from '$lib/geometry/index';
+import { rectangle } from '../fixtures/rectangle';
 
 // A 650 × 1,320 ft rectangle near 43.9 N (local offsets; the plan is what is tested here).
-function rect(widthFt: number, lengthFt: number, lng = -94.21, lat = 43.9): Polygon {
-	const dLat = (ft: number) => (ft * 0.3048) / 111_132;
-	const dLng = (ft: number) => (ft * 0.3048) / (111_320 * Math.cos((lat * Math.PI) / 180));
-	const c: [number, number][] = [[lng, lat], [lng + dLng(widthFt), lat], [lng + dLng(widthFt), lat + dLat(lengthFt)], [lng, lat + dLat(lengthFt)]];
-	return { type: 'Polygon', coordinates: [[...c, c[0]]] };
-}
 
 const cornSoy: LaneSpec[] = [
 	{ kind: 'crop', crop: 'corn', rows: 8, rowSpacingIn: 30 },
@@ -23,7 +17,7 @@ const cornSoy: LaneSpec[] = [
 async function setup() {
 	const { farm, members } = await makeFarmWithTeam();
 	const access = await requireMember(fakeEvent(members.owner), farm.id, 'editPlans');
-	const boundary = rect(650, 1320);
+	const boundary = rectangle(650, 1320);
 	const field = await createField(access, { name: 'Strip test', boundary, exclusions: [], farmNumber: null, tractNumber: null, fieldNumber: null, landlord: null, notes: null });
 	const [sw, , , nw] = boundary.coordinates[0] as [number, number][];
 	const settings = { guidance: { a: sw, b: nw }, pattern: cornSoy, offsetFt: 0, headlandFt: 0, variant: 'main', assignments: [], notes: null, rebase: false };
@@ -95,7 +89,7 @@ describe('plans', () => {
 	it('keeps a past plan on the boundary it was laid out on', async () => {
 		const { access, field, settings } = await setup();
 		const before = await savePlan(access, field.id, 2025, { ...settings, version: 0 });
-		await updateField(access, field.id, { boundary: rect(700, 1320) });
+		await updateField(access, field.id, { boundary: rectangle(700, 1320) });
 		const past = await getPlan(access, field.id, 2025);
 		expect(past.boundaryVersion).toBe(1);
 		expect(past.plantedAcres).toBeCloseTo(before.plantedAcres, 6);

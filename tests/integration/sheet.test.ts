@@ -1,5 +1,4 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Polygon } from 'geojson';
 import { PDFParse } from 'pdf-parse';
 import { createField } from '$lib/server/fields';
 import { savePlan } from '$lib/server/plans';
@@ -10,6 +9,7 @@ import { renderSheetPdf } from '$lib/server/sheet-pdf';
 import { requireMember } from '$lib/server/access';
 import { startMailStandIn, type CapturedMessage } from '../../scripts/stand-ins/smtp';
 import { fakeEvent, makeFarmWithTeam, thrown } from './helpers';
+import { rectangle } from '../fixtures/rectangle';
 
 // Its own ports, so it never meets the stand-in the end-to-end run starts later.
 const SMTP_PORT = 2725;
@@ -25,17 +25,11 @@ afterAll(async () => {
 	await mail.close();
 });
 
-function rect(widthFt: number, lengthFt: number, lng = -94.25, lat = 43.95): Polygon {
-	const dLat = (ft: number) => (ft * 0.3048) / 111_132;
-	const dLng = (ft: number) => (ft * 0.3048) / (111_320 * Math.cos((lat * Math.PI) / 180));
-	const c: [number, number][] = [[lng, lat], [lng + dLng(widthFt), lat], [lng + dLng(widthFt), lat + dLat(lengthFt)], [lng, lat + dLat(lengthFt)]];
-	return { type: 'Polygon', coordinates: [[...c, c[0]]] };
-}
 
 async function setup() {
 	const { farm, members } = await makeFarmWithTeam();
 	const access = await requireMember(fakeEvent(members.owner), farm.id, 'editPlans');
-	const boundary = rect(235, 800);
+	const boundary = rectangle(235, 800, -94.25, 43.95);
 	const field = await createField(access, { name: 'Sheet field', boundary, exclusions: [], farmNumber: null, tractNumber: null, fieldNumber: null, landlord: null, notes: null });
 	const [sw, , , nw] = boundary.coordinates[0] as [number, number][];
 	await savePlan(access, field.id, 2027, {

@@ -1,15 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import type { Polygon } from 'geojson';
 import { layoutStrips, type LaneSpec } from '$lib/geometry/index';
 import { buildSheet, condenseChecks, SheetError, type SheetSource } from '$lib/sheet/build';
 import type { Equipment, PlanterSetup } from '$lib/equipment/types';
+import { rectangle } from '../fixtures/rectangle';
 
-function rect(widthFt: number, lengthFt: number, lng = -94.22, lat = 43.91): Polygon {
-	const dLat = (ft: number) => (ft * 0.3048) / 111_132;
-	const dLng = (ft: number) => (ft * 0.3048) / (111_320 * Math.cos((lat * Math.PI) / 180));
-	const c: [number, number][] = [[lng, lat], [lng + dLng(widthFt), lat], [lng + dLng(widthFt), lat + dLat(lengthFt)], [lng, lat + dLat(lengthFt)]];
-	return { type: 'Polygon', coordinates: [[...c, c[0]]] };
-}
 
 const pattern: LaneSpec[] = [
 	{ kind: 'crop', crop: 'corn', rows: 8, rowSpacingIn: 30 },
@@ -32,7 +26,7 @@ function planter(setup: Partial<PlanterSetup> = {}): Equipment {
 const drill: Equipment = { id: 'd', name: '15-ft drill', kind: 'drill', workingWidthFt: 15, planter: null, sections: null, rows: null, lengthFt: null, notes: null, isDefaultPlanter: false, version: 1 };
 
 function source(overrides: Partial<SheetSource> = {}): SheetSource {
-	const boundary = rect(295, 1000);
+	const boundary = rectangle(295, 1000, -94.22, 43.91);
 	const guidance = { a: boundary.coordinates[0][0] as [number, number], b: boundary.coordinates[0][3] as [number, number] };
 	const layout = layoutStrips({ boundary, guidance, pattern, offsetFt: 0, headlandFt: 0 });
 	const assignments = layout.lanes.filter((l) => l.kind === 'crop').map((l) => ({ laneIndex: l.index, variety: l.crop === 'corn' ? 'hybrid A' : 'line 2', populationPerAcre: l.crop === 'corn' ? 34_000 : 140_000, relativeMaturity: null, seedLot: null, trialLabel: null, notes: null }));

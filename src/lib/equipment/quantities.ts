@@ -91,7 +91,7 @@ export interface FieldQuantities {
  * acres are ellipsoidal and carry noise far below that, which must not buy an extra bag
  * (80.00000005 ac × 34,000 ÷ 80,000 is 34 units, not 35).
  */
-const roundUp = (x: number): number => Math.ceil(Number(x.toFixed(4)));
+const ceilToWhole = (x: number): number => Math.ceil(Number(x.toFixed(4)));
 
 function presetSeedsPerUnit(crop: string): number | null {
 	const c = crop.trim().toLowerCase();
@@ -177,8 +177,8 @@ export function seedAndFertilizerQuantities(
 			seedsPerUnit: estimate.seedsPerUnit,
 			seedsPerUnitBasis: entered !== undefined ? 'entered' : 'common practice',
 			unitsExact: estimate.exactUnits,
-			unitsWhole: roundUp(estimate.exactUnits),
-			bags: roundUp(estimate.exactUnits / unitsPerBag)
+			unitsWhole: ceilToWhole(estimate.exactUnits),
+			bags: ceilToWhole(estimate.exactUnits / unitsPerBag)
 		};
 	});
 

@@ -216,9 +216,9 @@ describe('refusals', () => {
 	});
 
 	it('unit numbers must run 1 to n and fertilizer lines must exist', () => {
-		const gap = planter(4, () => ({ seed: corn(), fertilizerOn: [] }));
-		gap.rowUnits[3] = { ...gap.rowUnits[3], unit: 5 };
-		expectError(() => planPasses({ lanes, pattern, planter: gap }), 'unit-numbering', /numbered 1 to 4.*found 1, 2, 3, 5/);
+		const missingUnit = planter(4, () => ({ seed: corn(), fertilizerOn: [] }));
+		missingUnit.rowUnits[3] = { ...missingUnit.rowUnits[3], unit: 5 };
+		expectError(() => planPasses({ lanes, pattern, planter: missingUnit }), 'unit-numbering', /numbered 1 to 4.*found 1, 2, 3, 5/);
 		const unknown = planter(4, (u) => ({ seed: corn(), fertilizerOn: u === 2 ? ['potash'] : [] }));
 		expectError(() => planPasses({ lanes, pattern, planter: unknown }), 'unknown-fertilizer-line', /Row unit 2 has fertilizer line "potash"/);
 	});

@@ -30,3 +30,21 @@ export function createBaseMap(L: L, element: HTMLElement, settings: MapSettings)
 
 /** One colour per field, from a fixed set picked for contrast against the grid background. */
 export const FIELD_COLORS = ['#245a1e', '#8a4b08', '#1d4e89', '#7a1f5c', '#4d5d0f', '#7c2d12'];
+
+/**
+ * Creates the map once Leaflet has loaded and removes it when the component goes away (returns
+ * the cleanup for onMount). `setup` draws the component's own layers.
+ */
+export function mountMap(element: HTMLElement, settings: MapSettings, setup: (L: L, map: import('leaflet').Map) => void, withDrawing = false): () => void {
+	let map: import('leaflet').Map | undefined;
+	let destroyed = false;
+	loadLeaflet(withDrawing).then((L) => {
+		if (destroyed) return;
+		map = createBaseMap(L, element, settings);
+		setup(L, map);
+	});
+	return () => {
+		destroyed = true;
+		map?.remove();
+	};
+}

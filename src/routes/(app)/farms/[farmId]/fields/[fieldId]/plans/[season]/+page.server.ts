@@ -7,6 +7,8 @@ import { AppError } from '$lib/server/errors';
 import { parseSeason } from '$lib/server/season';
 import { planSaveSchema } from '$lib/schemas/plan';
 import { zodFields } from '$lib/server/api';
+import { listEquipment } from '$lib/server/equipment';
+import { loadSheet } from '$lib/server/sheet';
 
 function pageError(e: unknown): never {
 	if (e instanceof AppError) error(e.status, { message: e.message, code: e.code });
@@ -26,7 +28,24 @@ export const load: PageServerLoad = async (event) => {
 			if (!(e instanceof AppError && e.status === 404 && !variant)) throw e;
 		}
 		const outline = await getBoundaryVersion(access, field.id, plan?.boundaryVersion ?? field.boundaryVersion);
+		const equipment = await listEquipment(access);
+		// The same checks the cab sheet prints, so problems show while planning, not at the planter.
+		let planterChecks: { planter: string | null; stops: string[]; warnings: string[] } | null = null;
+		if (plan) {
+			try {
+				const sheet = await loadSheet(access, field.id, season, { variant });
+				planterChecks = {
+					planter: sheet.equipment?.name ?? null,
+					stops: sheet.checks.filter((c) => c.severity === 'stop').map((c) => c.message),
+					warnings: sheet.checks.filter((c) => c.severity === 'warn').map((c) => c.message)
+				};
+			} catch (e) {
+				if (!(e instanceof AppError)) throw e;
+			}
+		}
 		return {
+			equipment: equipment.filter((e) => e.kind !== 'planter' && e.kind !== 'sidedress').map((e) => ({ name: e.name, kind: e.kind, workingWidthFt: e.workingWidthFt })),
+			planterChecks,
 			field: { id: field.id, name: field.name, boundaryVersion: field.boundaryVersion, acres: field.acres },
 			season,
 			plan,
