@@ -4,6 +4,14 @@ set -euo pipefail
 source "$(dirname "$0")/env.sh"
 cd "$ROOT"
 
+# Say at once, before any work, when a port we need is taken.
+for spec in "${PORT:-3000}:PORT:the web app" "${SMTP_STANDIN_PORT:-2525}:SMTP_STANDIN_PORT:the local SMTP stand-in" \
+	"${MAILBOX_STANDIN_PORT:-2526}:MAILBOX_STANDIN_PORT:the local mailbox reader" "${TILE_STANDIN_PORT:-8088}:TILE_STANDIN_PORT:the local map-tile stand-in"; do
+	IFS=: read -r port var what <<<"$spec"
+	if [ "$var" != PORT ] && { { [ "$var" = TILE_STANDIN_PORT ] && [ -n "${TILE_URL:-}" ]; } || { [ "$var" != TILE_STANDIN_PORT ] && [ -n "${SMTP_URL:-}" ]; }; }; then continue; fi
+	port_in_use "$port" && die "Port $port ($what) is taken by another program. Stop it, or choose another port, e.g. $var=$((port + 10)) npm start"
+done
+
 ensure_postgres_installed
 ensure_node_modules
 
@@ -26,8 +34,9 @@ say "Migrating the database"
 npm run --silent migrate >/dev/null
 say "Loading the demo scenario"
 npm run --silent seed
+mkdir -p "$ROOT/.data"
 say "Building the app"
-npx vite build --logLevel error >/dev/null
+npx vite build --logLevel error >"$ROOT/.data/build.log" 2>&1 || { cat "$ROOT/.data/build.log"; die "the build failed"; }
 node --import tsx scripts/serve.ts &
 SERVE_PID=$!
 wait "$SERVE_PID"

@@ -35,7 +35,7 @@ npx vitest run --reporter=default --reporter=json --outputFile.json=test-results
 vitest_rc=$?
 
 say "Building the app for end-to-end tests"
-npx vite build --logLevel error >/dev/null || die "vite build failed"
+npx vite build --logLevel error >test-results/build.log 2>&1 || { cat test-results/build.log; die "vite build failed"; }
 
 say "End-to-end tests (Playwright, Chromium)"
 PLAYWRIGHT_JSON_OUTPUT_NAME=test-results/playwright.json npx playwright test --reporter=list,json

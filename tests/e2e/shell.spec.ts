@@ -1,0 +1,47 @@
+import { expect, test } from '@playwright/test';
+import { DEMO_FARM_ID, apiSignIn, signUp, uniqueEmail, waitForMail } from './helpers';
+
+test('a user of two farms switches between them from the header', async ({ page }) => {
+	await signUp(page, 'Two Farms', uniqueEmail('twofarms'));
+	for (const name of ['Alpha Acres test', 'Bravo Bottoms test']) {
+		await page.goto('/farms');
+		await page.getByLabel('Farm name').fill(name);
+		await page.getByRole('button', { name: 'Create farm' }).click();
+		await expect(page.getByRole('heading', { level: 1, name })).toBeVisible();
+	}
+	const switcher = page.getByLabel('Switch farm');
+	await expect(switcher).toHaveValue(/.+/);
+	await switcher.selectOption({ label: 'Alpha Acres test' });
+	await expect(page.getByRole('heading', { level: 1, name: 'Alpha Acres test' })).toBeVisible();
+	await page.getByLabel('Switch farm').selectOption({ label: 'Bravo Bottoms test' });
+	await expect(page.getByRole('heading', { level: 1, name: 'Bravo Bottoms test' })).toBeVisible();
+});
+
+test('the dev mailbox lists what the local SMTP stand-in caught', async ({ page, request }) => {
+	await page.goto('/forgot-password');
+	await page.getByLabel('E-mail').fill('owner@demo.stripwright.test');
+	await page.getByRole('button', { name: 'Send reset link' }).click();
+	await waitForMail(request, 'owner@demo.stripwright.test', /Reset your Stripwright password/);
+	await page.goto('/dev/mailbox');
+	await expect(page.getByRole('heading', { name: 'Dev mailbox' })).toBeVisible();
+	await expect(page.getByText('Reset your Stripwright password').first()).toBeVisible();
+	await expect(page.getByText('to owner@demo.stripwright.test').first()).toBeVisible();
+});
+
+test.describe('on a phone', () => {
+	test.use({ viewport: { width: 390, height: 844 }, hasTouch: true });
+	test('the menu opens with a tap and every target is at least 44 px tall', async ({ page }) => {
+		await apiSignIn(page.request, 'crew');
+		await page.goto(`/farms/${DEMO_FARM_ID}`);
+		const menu = page.getByText('Menu ▾');
+		await expect(menu).toBeVisible();
+		await menu.tap();
+		const fields = page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Fields' }).first();
+		await expect(fields).toBeVisible();
+		for (const target of [menu, fields]) expect((await target.boundingBox())!.height).toBeGreaterThanOrEqual(44);
+		await fields.tap();
+		await expect(page.getByRole('heading', { level: 1, name: 'Fields' })).toBeVisible();
+		// Nothing overflows sideways on a phone.
+		expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+	});
+});
