@@ -96,7 +96,7 @@ export function reportSetup(setup: PlanterSetup, kind: string): SetupReport {
 			const wrong = setup.rowUnits.filter((u) => u.seed && u.fertilizerOn.includes(line.id) && !meantFor.has(u.seed.crop.trim().toLowerCase()));
 			if (wrong.length && meantFor.size) {
 				const crops = [...new Set(wrong.map((u) => u.seed!.crop))].join(', ');
-				warnings.push(`${line.name || line.id} is meant for ${line.forCrops.join(', ')} but is on at ${unitList(wrong.map((u) => u.unit))}, which carry ${crops}.`);
+				warnings.push(`${line.name || line.id} is meant for ${line.forCrops.join(', ')} but is on at ${unitList(wrong.map((u) => u.unit))}, which ${wrong.length === 1 ? 'carries' : 'carry'} ${crops}.`);
 			}
 		}
 	}
