@@ -221,7 +221,7 @@ describe('equipment form actions', () => {
 		expect(await listEquipment(access)).toEqual([]);
 	});
 
-	it('refuses crew, advisor and viewer with 403 on every write action', async () => {
+	it('refuses crew, advisor and viewer with 403 on every write action; a manager may delete', async () => {
 		const { farm, members, access } = await farmAccess();
 		const drill = await createEquipment(access, input({ name: 'Drill' }));
 		for (const role of ['crew', 'advisor', 'viewer'] as const) {
@@ -234,6 +234,10 @@ describe('equipment form actions', () => {
 			expect(del.status, role).toBe(403);
 		}
 		expect((await listEquipment(access)).map((e) => [e.name, e.version])).toEqual([['Drill', 1]]);
+		const params = { farmId: farm.id, equipmentId: drill.id };
+		const del = await thrown(() => itemActions.delete(postEvent(members.manager, `/farms/${farm.id}/equipment/${drill.id}`, params, {})));
+		expect(del).toMatchObject({ status: 303, location: `/farms/${farm.id}/equipment?deleted=Drill` });
+		expect(await listEquipment(access)).toEqual([]);
 	});
 
 	it('answers a stale edit with a 409 message and keeps the stored implement', async () => {
