@@ -42,3 +42,33 @@ test('non-owners cannot post owner actions', async ({ page }) => {
 	expect(body.type).toBe('error');
 	expect(body.error.message).toMatch(/is Manager, which cannot manage members/);
 });
+
+test('the owner grants a viewer another field, and the viewer then sees it', async ({ browser }) => {
+	const owner = await browser.newContext();
+	const page = await owner.newPage();
+	await apiSignIn(page.request, 'owner');
+	await page.goto(`/farms/${DEMO_FARM_ID}/team`);
+	const grants = page.getByTestId('grants-viewer@demo.stripwright.test');
+	await expect(grants.getByLabel('Creek Bend')).toBeChecked();
+	await expect(grants.getByLabel('North 80')).not.toBeChecked();
+	await grants.getByLabel('North 80').check();
+	await grants.getByRole('button', { name: /Save what/ }).click();
+	await expect(page.getByRole('status').filter({ hasText: 'now sees 2 fields' })).toBeVisible();
+
+	const viewer = await browser.newContext();
+	const vp = await viewer.newPage();
+	await apiSignIn(vp.request, 'viewer');
+	await vp.goto(`/farms/${DEMO_FARM_ID}/fields`);
+	await expect(vp.getByTestId('fields-table')).toContainText('North 80');
+	await expect(vp.getByTestId('fields-table')).not.toContainText('Shelter Lanes');
+	// Viewers cannot grant themselves more.
+	const res = await vp.request.post(`/farms/${DEMO_FARM_ID}/team?/grantFields`, { form: { userId: '5a1e0000-0000-4000-8000-0000000000a5', fieldId: '5a1e0000-0000-4000-8000-0000000001f3' }, headers: { origin: new URL(vp.url()).origin, accept: 'application/json' } });
+	expect(res.status()).toBe(403);
+	await viewer.close();
+
+	// Back as it was, for the other specs that read the demo viewer's fields.
+	await grants.getByLabel('North 80').uncheck();
+	await grants.getByRole('button', { name: /Save what/ }).click();
+	await expect(page.getByRole('status').filter({ hasText: 'now sees 1 field' })).toBeVisible();
+	await owner.close();
+});

@@ -5,7 +5,8 @@ import { z } from 'zod';
 import type { Actions, PageServerLoad } from './$types';
 import { inviteSchema, roleChangeSchema } from '$lib/schemas/account';
 import { requireMember } from '$lib/server/access';
-import { changeRole, listMembers, removeMember, TeamRuleError } from '$lib/server/team';
+import { changeRole, listMembers, removeMember, setFieldScope, TeamRuleError } from '$lib/server/team';
+import { listFields } from '$lib/server/fields';
 import { createInvitation, InvitationError, INVITATION_TTL_DAYS, listPendingInvitations, revokeInvitation } from '$lib/server/invitations';
 import { appOrigin, sendMail } from '$lib/server/mail';
 import { ROLE_LABELS, ROLE_SUMMARIES } from '$lib/permissions';
@@ -16,6 +17,7 @@ export const load: PageServerLoad = async (event) => {
 	return {
 		members: await listMembers(access.farm.id),
 		invitations: owner ? await listPendingInvitations(access.farm.id) : [],
+		fields: owner ? (await listFields(access)).map((f) => ({ id: f.id, name: f.name })) : [],
 		inviteForm: await superValidate(zod4(inviteSchema), { id: 'invite' })
 	};
 };
@@ -80,6 +82,20 @@ export const actions: Actions = {
 			throw e;
 		}
 		redirect(303, '/farms');
+	},
+	// Viewers (landlords, visitors) read only the fields granted to them.
+	grantFields: async (event) => {
+		const access = await requireMember(event, event.params.farmId, 'manageFarm');
+		const data = await event.request.formData();
+		const parsed = memberId.safeParse({ userId: data.get('userId') });
+		if (!parsed.success) return fail(400, { teamError: 'Unknown member.' });
+		const member = (await listMembers(access.farm.id)).find((m) => m.userId === parsed.data.userId);
+		if (!member || member.role !== 'viewer') return fail(400, { teamError: 'Only viewers have fields granted one by one; other roles see every field.' });
+		const farmFields = new Set((await listFields(access)).map((f) => f.id));
+		const granted = data.getAll('fieldId').map(String);
+		if (granted.some((id) => !farmFields.has(id))) return fail(400, { teamError: 'Some of those fields are not on this farm.' });
+		await setFieldScope(access.farm.id, access.user.id, member.userId, granted);
+		return { teamMessage: `${member.name} now sees ${granted.length} field${granted.length === 1 ? '' : 's'}.` };
 	},
 	revoke: async (event) => {
 		const access = await requireMember(event, event.params.farmId, 'manageFarm');
