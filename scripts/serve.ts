@@ -57,8 +57,12 @@ let stopping = false;
 async function stop(code: number) {
 	if (stopping) return;
 	stopping = true;
+	const exited = new Promise<void>((resolve) => (app.exitCode !== null ? resolve() : app.once('exit', () => resolve())));
 	app.kill('SIGTERM');
 	await Promise.all(closers.map((c) => c().catch(() => {})));
+	// Give the app a moment to finish requests in flight, then make sure it is gone.
+	await Promise.race([exited, new Promise((r) => setTimeout(r, 5000))]);
+	if (app.exitCode === null) app.kill('SIGKILL');
 	process.exit(code);
 }
 process.on('SIGINT', () => stop(0));

@@ -2,6 +2,12 @@ import type { Handle, HandleServerError } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
 import { randomUUID } from 'node:crypto';
 import { clearSessionCookie, lucia, setSessionCookie } from '$lib/server/auth';
+import { closeDb } from '$lib/server/db';
+
+// adapter-node emits this after a graceful stop; an idle pool would otherwise keep the process alive.
+process.on('sveltekit:shutdown', () => {
+	void closeDb();
+});
 
 const handleSession: Handle = async ({ event, resolve }) => {
 	const sessionId = event.cookies.get(lucia.sessionCookieName);
