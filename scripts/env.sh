@@ -67,7 +67,8 @@ choose_data_dir() {
 	export PG_DATA="$wanted"
 }
 
-run_pg() { if [ "$(id -u)" = 0 ]; then runuser -u postgres -- "$@"; else "$@"; fi; }
+# From /, so the postgres user is not left in a folder it cannot enter.
+run_pg() { if [ "$(id -u)" = 0 ]; then (cd / && runuser -u postgres -- "$@"); else "$@"; fi; }
 
 port_in_use() { (exec 3<>"/dev/tcp/127.0.0.1/$1") 2>/dev/null; }
 

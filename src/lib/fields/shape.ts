@@ -1,9 +1,9 @@
 // Checks a drawn or imported field outline and measures it. Pure: runs in the browser while
 // drawing and on the server before anything is stored.
-import { featureCollection, intersect, kinks, polygon as turfPolygon, union } from '@turf/turf';
+import { featureCollection, intersect, union } from '@turf/turf';
 import type { Feature, MultiPolygon, Polygon } from 'geojson';
-import { geodesicAcres, GeometryError } from '../geometry/index';
-import { MAX_FIELD_ACRES, validatePolygonal } from '../geometry/validate';
+import { checkOutline, geodesicAcres, GeometryError } from '../geometry/index';
+import { MAX_FIELD_ACRES } from '../geometry/validate';
 
 /** Smaller than this is a drawing slip, not a field. */
 export const MIN_FIELD_ACRES = 0.01;
@@ -29,32 +29,13 @@ export interface FieldMeasure {
 	netAcres: number;
 }
 
-function polygons(g: Polygon | MultiPolygon): Polygon[] {
-	return g.type === 'Polygon' ? [g] : g.coordinates.map((coordinates) => ({ type: 'Polygon', coordinates }));
-}
-
-/** Throws GeometryError naming the approximate place where an outline crosses itself. */
-export function checkNoSelfCrossing(g: Polygon | MultiPolygon, what: string) {
-	for (const p of polygons(g)) {
-		const k = kinks(turfPolygon(p.coordinates));
-		if (k.features.length) {
-			const [lng, lat] = k.features[0].geometry.coordinates;
-			throw new GeometryError(
-				'self-intersection',
-				`The ${what} crosses itself near longitude ${lng.toFixed(6)}, latitude ${lat.toFixed(6)}. Move the points so the outline does not cross.`,
-				[lng, lat]
-			);
-		}
-	}
-}
 
 /**
  * Validates a field's boundary and exclusions and measures them on the WGS84 ellipsoid.
  * @throws GeometryError with a message saying what is wrong and where
  */
 export function measureFieldShape(shape: FieldShape): FieldMeasure {
-	validatePolygonal(shape.boundary, 'field boundary');
-	checkNoSelfCrossing(shape.boundary, 'field boundary');
+	checkOutline(shape.boundary, 'field boundary');
 	const acres = geodesicAcres(shape.boundary);
 	if (!(acres >= MIN_FIELD_ACRES)) {
 		throw new GeometryError(
@@ -73,8 +54,7 @@ export function measureFieldShape(shape: FieldShape): FieldMeasure {
 	const inside: Feature<Polygon | MultiPolygon>[] = [];
 	shape.exclusions.forEach((x, i) => {
 		const what = `exclusion ${i + 1} (${x.name || x.kind})`;
-		validatePolygonal(x.geometry, what);
-		checkNoSelfCrossing(x.geometry, what);
+		checkOutline(x.geometry, what);
 		const clipped = intersect(featureCollection([{ type: 'Feature', properties: {}, geometry: shape.boundary }, { type: 'Feature', properties: {}, geometry: x.geometry }]));
 		if (!clipped) throw new GeometryError('invalid-geometry', `The ${what} lies outside the field boundary.`);
 		inside.push(clipped);

@@ -7,6 +7,7 @@ export type GeometryErrorCode =
 	| 'out-of-range'
 	| 'swapped-coordinates'
 	| 'self-intersection'
+	| 'zero-area'
 	| 'field-too-large'
 	| 'too-many-vertices'
 	| 'ab-same-point'

@@ -6,6 +6,7 @@ export type { LngLat, LaneKind, LaneSpec, LayoutInput, Lane, Layout, CropTotals 
 export { GeometryError, type GeometryErrorCode } from './errors';
 export { layoutStrips } from './layout';
 export { geodesicAcres, geodesicSquareMeters } from './area';
+export { checkOutline } from './outline';
 export { rotationMatrix, type RotationCell } from './rotation';
 export { equipmentFit, type EquipmentFit } from './fit';
 export { laneWidthFt, openMiddleIn, rowPositionsIn } from './pattern';

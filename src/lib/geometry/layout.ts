@@ -2,10 +2,10 @@ import type { MultiPolygon, Polygon, Position } from 'geojson';
 import { geodesicAcres } from './area';
 import { erodeShape, intersectShapes, orientShape, shapeArea, subtractShapes, unionShapes, type PlaneShape } from './clip';
 import { clipToBand } from './slab';
-import { findCrossing } from './crossings';
+import { centredProjection, toPlane } from './outline';
 import { GeometryError } from './errors';
 import { openMiddleIn, patternEdgesFt } from './pattern';
-import { guidanceFrame, localProjection, type XY } from './projection';
+import { guidanceFrame, type XY } from './projection';
 import { summariseByCrop, countBorderRows } from './totals';
 import type { Lane, Layout, LayoutInput } from './types';
 import { feetToMeters, metersToFeet, SQ_FEET_PER_ACRE } from './units';
@@ -20,20 +20,7 @@ const MAX_AB_DISTANCE_M = 5_000;
 
 type Polygonal = Polygon | MultiPolygon;
 
-function polygonsOf(g: Polygonal): Position[][][] {
-	return g.type === 'Polygon' ? [g.coordinates] : g.coordinates;
-}
 
-/** Drops repeated consecutive positions (still closed), without touching the input. */
-function withoutRepeats(ring: Position[]): Position[] {
-	const out: Position[] = [ring[0]];
-	for (let i = 1; i < ring.length; i++) {
-		const p = ring[i];
-		const q = out[out.length - 1];
-		if (p[0] !== q[0] || p[1] !== q[1]) out.push(p);
-	}
-	return out;
-}
 
 function mapShape(shape: PlaneShape, f: (p: XY) => XY): PlaneShape {
 	return shape.map((rings) => rings.map((ring) => ring.map((p) => f(p as XY))));
@@ -54,27 +41,6 @@ function bboxOf(shape: PlaneShape): [number, number, number, number] {
 	return [minX, minY, maxX, maxY];
 }
 
-/** Projects a polygonal geometry into the plane and refuses it if any ring crosses itself or another. */
-function toPlane(g: Polygonal, forward: (p: Position) => XY, inverse: (p: XY) => [number, number], what: string): PlaneShape {
-	return polygonsOf(g).map((rings) => {
-		const plane = rings.map((ring) => withoutRepeats(ring).map(forward));
-		for (const ring of plane) {
-			if (ring.length < 4) {
-				throw new GeometryError('too-few-positions', `The ${what} has a ring with fewer than 3 distinct corners.`);
-			}
-		}
-		const hit = findCrossing(plane);
-		if (hit) {
-			const [lng, lat] = inverse(hit);
-			throw new GeometryError(
-				'self-intersection',
-				`The ${what} crosses itself near longitude ${lng.toFixed(6)}, latitude ${lat.toFixed(6)}; redraw the outline there.`,
-				[lng, lat]
-			);
-		}
-		return plane;
-	});
-}
 
 /**
  * Lays a repeating pattern of lanes parallel to the A-B line over a field and clips it to the
@@ -99,13 +65,7 @@ export function layoutStrips(input: LayoutInput): Layout {
 		throw new GeometryError('field-too-large', `The field outline covers ${Math.round(fieldAcres).toLocaleString('en-US')} acres; fields are limited to ${MAX_FIELD_ACRES.toLocaleString('en-US')} acres. Check the outline or split the field.`);
 	}
 
-	// Plane centred on the middle of the boundary's extent.
-	let minLng = Infinity, maxLng = -Infinity, minLat = Infinity, maxLat = -Infinity;
-	for (const rings of polygonsOf(input.boundary)) for (const [lng, lat] of rings[0]) {
-		minLng = Math.min(minLng, lng); maxLng = Math.max(maxLng, lng);
-		minLat = Math.min(minLat, lat); maxLat = Math.max(maxLat, lat);
-	}
-	const proj = localProjection((minLng + maxLng) / 2, (minLat + maxLat) / 2);
+	const proj = centredProjection(input.boundary);
 	const field = toPlane(input.boundary, proj.forward, proj.inverse, 'field boundary');
 	const exclusionParts = (input.exclusions ?? []).map((ex, i) => toPlane(ex, proj.forward, proj.inverse, `exclusion ${i + 1}`));
 

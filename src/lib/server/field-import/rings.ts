@@ -1,5 +1,5 @@
 // Checks on single polygons' rings, shared by every format.
-import { kinks, polygon as turfPolygon } from '@turf/turf';
+import { checkOutline, GeometryError } from '../../geometry/index';
 import type { Position } from 'geojson';
 import { ImportError } from './errors';
 
@@ -61,14 +61,28 @@ export function checkRings(label: string, rings: Position[][], polygonIndex: num
 		}
 		return distinct;
 	});
-	const crossings = kinks(turfPolygon(cleaned));
-	if (crossings.features.length) {
-		const [lng, lat] = crossings.features[0].geometry.coordinates;
+	const crossing = crossingOf(cleaned);
+	if (crossing) {
+		const [lng, lat] = crossing;
 		throw new ImportError(
 			'self_intersection',
 			`${label} crosses itself near longitude ${lng.toFixed(6)}, latitude ${lat.toFixed(6)}. Fix the outline so its edges do not cross.`
 		);
 	}
 	return cleaned;
+}
+
+
+/** Where the rings cross (the geometry engine's own check, so imports and layouts agree), or null. */
+function crossingOf(rings: Position[][]): [number, number] | null {
+	try {
+		checkOutline({ type: 'Polygon', coordinates: rings }, 'outline');
+		return null;
+	} catch (e) {
+		if (e instanceof GeometryError && e.code === 'self-intersection' && e.where) return e.where;
+		// A flat outline: the area check that follows says so in the import's own words.
+		if (e instanceof GeometryError && e.code === 'zero-area') return null;
+		throw e;
+	}
 }
 
