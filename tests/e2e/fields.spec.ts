@@ -100,7 +100,7 @@ test('a drawing that crosses itself is refused with a message saying where', asy
 	const bowtie = { type: 'Polygon', coordinates: [[[-94.3, 43.8], [-94.29, 43.81], [-94.29, 43.8], [-94.3, 43.81], [-94.3, 43.8]]] };
 	await page.getByLabel('GeoJSON Polygon (longitude, latitude)').fill(JSON.stringify(bowtie));
 	await page.getByRole('button', { name: 'Use this boundary' }).click();
-	await expect(page.getByTestId('measure')).toContainText('crosses itself near longitude -94.295000, latitude 43.805000');
+	await expect(page.getByTestId('measure')).toContainText('crosses itself near longitude -94.295000, latitude 43.80500');
 	await page.getByLabel('Field name').fill('Bow tie');
 	await page.getByRole('button', { name: 'Save field' }).click();
 	await expect(page.getByRole('alert').filter({ hasText: 'crosses itself' }).first()).toBeVisible();
