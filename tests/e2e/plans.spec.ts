@@ -103,3 +103,21 @@ test('compare two seasons side by side and overlaid', async ({ page }) => {
 	await expect(page.getByRole('button', { name: /Save 2026 plan/ })).toHaveCount(0);
 	await expect(page.getByTestId('lane-table')).toBeVisible();
 });
+
+test('adopt a variant without JavaScript, then adopt the main plan back', async ({ browser }) => {
+	const context = await browser.newContext({ javaScriptEnabled: false });
+	const page = await context.newPage();
+	await apiSignIn(page.request, 'owner');
+	await page.goto(`${NORTH80}/plans/2027?variant=${encodeURIComponent('12/12 strips')}`);
+	await expect(page.getByRole('heading', { level: 1 })).toHaveText('North 80 · 2027 plan · 12/12 strips');
+	await page.getByRole('button', { name: 'Adopt 12/12 strips' }).click();
+	await expect(page.getByRole('link', { name: '12/12 strips (adopted)' })).toBeVisible();
+	const adopted = await (await page.request.get(`/api/farms/${DEMO_FARM_ID}/fields/5a1e0000-0000-4000-8000-0000000001f1/plans/2027`)).json();
+	expect(adopted.variant).toBe('12/12 strips');
+	expect(adopted.lanes).toHaveLength(42);
+
+	await page.goto(`${NORTH80}/plans/2027?variant=main`);
+	await page.getByRole('button', { name: 'Adopt main' }).click();
+	await expect(page.getByRole('link', { name: 'main (adopted)' })).toBeVisible();
+	await context.close();
+});

@@ -1,5 +1,5 @@
 import { error, fail, redirect } from '@sveltejs/kit';
-import type { Actions, PageServerLoad } from './$types';
+import type { Actions, PageServerLoad, RequestEvent } from './$types';
 import { requireMember } from '$lib/server/access';
 import { getBoundaryVersion, getField } from '$lib/server/fields';
 import { adoptVariant, deletePlanVariant, getPlan, listPlans, rotationFromPrevious, savePlan, type Plan } from '$lib/server/plans';
@@ -61,31 +61,25 @@ export const load: PageServerLoad = async (event) => {
 const seasonUrl = (farmId: string, fieldId: string, season: number, variant?: string) =>
 	`/farms/${farmId}/fields/${fieldId}/plans/${season}${variant ? `?variant=${encodeURIComponent(variant)}` : ''}`;
 
+/** Adopting and deleting a variant share one ladder: access → variant → act → back to the season. */
+function variantAction(act: typeof adoptVariant | typeof deletePlanVariant) {
+	return async (event: RequestEvent) => {
+		const access = await requireMember(event, event.params.farmId, 'editPlans');
+		const variant = String((await event.request.formData()).get('variant') ?? '');
+		const season = parseSeason(event.params.season!);
+		try {
+			await act(access, event.params.fieldId!, season, variant);
+		} catch (e) {
+			if (e instanceof AppError) return fail(e.status, { actionError: e.message });
+			throw e;
+		}
+		redirect(303, seasonUrl(access.farm.id, event.params.fieldId!, season));
+	};
+}
+
 export const actions: Actions = {
-	adopt: async (event) => {
-		const access = await requireMember(event, event.params.farmId, 'editPlans');
-		const variant = String((await event.request.formData()).get('variant') ?? '');
-		const season = parseSeason(event.params.season);
-		try {
-			await adoptVariant(access, event.params.fieldId, season, variant);
-		} catch (e) {
-			if (e instanceof AppError) return fail(e.status, { actionError: e.message });
-			throw e;
-		}
-		redirect(303, seasonUrl(access.farm.id, event.params.fieldId, season));
-	},
-	deleteVariant: async (event) => {
-		const access = await requireMember(event, event.params.farmId, 'editPlans');
-		const variant = String((await event.request.formData()).get('variant') ?? '');
-		const season = parseSeason(event.params.season);
-		try {
-			await deletePlanVariant(access, event.params.fieldId, season, variant);
-		} catch (e) {
-			if (e instanceof AppError) return fail(e.status, { actionError: e.message });
-			throw e;
-		}
-		redirect(303, seasonUrl(access.farm.id, event.params.fieldId, season));
-	},
+	adopt: variantAction(adoptVariant),
+	deleteVariant: variantAction(deletePlanVariant),
 	// Without JavaScript the editor posts its settings as JSON text; with it, the page uses PUT.
 	save: async (event) => {
 		const access = await requireMember(event, event.params.farmId, 'editPlans');
