@@ -1,7 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { describeShift, isWideRowPattern, patternWidthFt, shiftFeet } from '$lib/plans/shift';
 import { rotationWarnings } from '$lib/plans/rotation-flags';
-import { seedNeeds } from '$lib/plans/seed-needs';
 import { parseLaneList } from '$lib/plans/lane-selection';
 import { lanesFeatureCollection } from '$lib/plans/lanes-geojson';
 import type { LaneSpec } from '$lib/geometry/index';
@@ -39,25 +38,6 @@ describe('rotation warnings', () => {
 	it('reports every crop that follows itself except pasture', () => {
 		const w = rotationWarnings([], [], [{ from: 'corn', to: 'corn', acres: 3.25 }, { from: 'pasture', to: 'pasture', acres: 5 }, { from: 'corn', to: 'soybean', acres: 4 }], false);
 		expect(w).toEqual([{ kind: 'same_crop', laneIndex: null, message: '3.25 ac of corn follows corn.' }]);
-	});
-});
-
-describe('seed needed', () => {
-	it('converts acres × population to units: 80 ac × 34,000 ÷ 80,000 = 34.0 units', () => {
-		// REFERENCES §2 [K]: 80 ac × 34,000 ÷ 80,000 = 34.0 units; corn unit 80,000 kernels (common practice).
-		const lanes = Array.from({ length: 4 }, () => ({ crop: 'corn', kind: 'crop', acres: 20, assignment: { variety: 'hybrid A', populationPerAcre: 34_000 } }));
-		const [n] = seedNeeds(lanes);
-		expect(n).toMatchObject({ crop: 'corn', variety: 'hybrid A', lanes: 4, acres: 80, seeds: 2_720_000, seedsPerUnit: 80_000, exactUnits: 34, wholeUnits: 34 });
-	});
-	it('uses 140,000 seeds per soybean unit and reports acres with no population', () => {
-		const lanes = [
-			{ crop: 'soybean', kind: 'crop', acres: 10, assignment: { variety: null, populationPerAcre: 140_000 } },
-			{ crop: 'soybean', kind: 'crop', acres: 5, assignment: null },
-			{ crop: 'pasture', kind: 'pasture', acres: 3, assignment: null }
-		];
-		const needs = seedNeeds(lanes);
-		expect(needs).toHaveLength(1);
-		expect(needs[0]).toMatchObject({ acres: 15, acresWithoutPopulation: 5, seeds: 1_400_000, seedsPerUnit: 140_000, exactUnits: 10, wholeUnits: 10 });
 	});
 });
 

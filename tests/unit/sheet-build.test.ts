@@ -78,7 +78,7 @@ describe('seeding sheet', () => {
 		expect(sheet.equipment).toBeNull();
 		expect(sheet.passes).toEqual([]);
 		expect(sheet.lanes).toHaveLength(20);
-		expect(sheet.quantities.find((q) => /^corn — hybrid A/.test(q.label))?.amount).toMatch(/units/);
+		expect(sheet.quantities.find((q) => /^Corn — hybrid A/.test(q.label))?.amount).toMatch(/units/);
 	});
 
 	it('a planter with no row units is a STOP, never passes that look valid', () => {

@@ -24,6 +24,7 @@ export { checkPasses, type CheckProblem, type EquipmentCheck } from './checks';
 export { implementChecks, implementFitChecks, IMPLEMENT_LANE_KINDS, type ImplementFitReport, type ImplementInput, type ImplementLaneFit } from './implements';
 export {
 	seedAndFertilizerQuantities,
+	seedQuantities,
 	type FertilizerAnalysis,
 	type FertilizerQuantity,
 	type FieldQuantities,
@@ -31,4 +32,4 @@ export {
 	type QuantityOptions,
 	type VarietyQuantity
 } from './quantities';
-export { toSheetChecks, toSheetPasses, toSheetQuantities } from './sheet';
+export { toSheetChecks, toSheetPasses, toSheetQuantities, toSheetSeedQuantities } from './sheet';

@@ -107,39 +107,25 @@ function byCropOption<T>(record: Partial<Record<string, T>> | undefined, crop: s
 }
 
 /**
- * Seed and fertilizer amounts for a field: per variety seeds, units (exact and whole) and bags;
- * per fertilizer line gallons (entered gal/ac × acres where the line is on) and pounds of N
- * (lb/gal × %N); totals per field. Arithmetic only, through the agronomy helpers: rates are the
- * farmer's, never a recommendation.
+ * Seed per crop and variety: seeds, units (exact and whole) and bags, from the entered populations.
+ * Needs no planter, so the plan page and a sheet without a planter use it too. Lanes without a
+ * population are left out and noted.
  *
- * Sources: seed units = acres × seeds/ac ÷ seeds per unit [REFERENCES §2, K]; seeds per unit
- * corn 80,000 / soybean 140,000 are common practice (override per crop); lb N/ac = gal/ac ×
- * lb/gal × %N ÷ 100 (J. Camberato, Purdue Extension 2023).
- *
- * Where a line is on: from `options.passes` when given (share of each lane's rows the line runs on);
- * otherwise from the planter: the share of units carrying the lane's crop that have the line on.
- *
- * @throws EquipmentError('invalid-lane') for an assigned lane without acres; 'invalid-rate' for a bad rate
- * @example
- * seedAndFertilizerQuantities(lanes, assignments, planter, { rates: { n: { gallonsPerAcre: 15, product: 'uan-32' } } })
- *   .fertilizer[0].poundsNPerAcre // 53.09
+ * Source: seed units = acres × seeds/ac ÷ seeds per unit [REFERENCES §2, K]; corn 80,000 and
+ * soybean 140,000 seeds per unit are common practice (override per crop).
+ * @example seedQuantities(lanes, assignments).varieties[0].unitsExact // 34 for 80 ac at 34,000
  */
-export function seedAndFertilizerQuantities(
+export function seedQuantities(
 	lanes: readonly (LaneInput | PlanLane)[],
 	assignments: readonly LaneAssignment[],
-	planter: PlanterSetup,
-	options: QuantityOptions = {}
-): FieldQuantities {
-	const checked = checkPlanter(planter);
-	const planLanes = resolveLanes(lanes);
-	const byIndex = new Map(planLanes.map((l) => [l.index, l]));
-	const notes: string[] = [];
+	options: Pick<QuantityOptions, 'seedsPerUnit' | 'unitsPerBag'> = {},
+	notes: string[] = []
+): { varieties: VarietyQuantity[]; notes: string[] } {
+	const byIndex = new Map(resolveLanes(lanes).map((l) => [l.index, l]));
 	const acresOf = (lane: PlanLane): number => {
 		if (lane.acres === null || !(lane.acres >= 0)) throw new EquipmentError('invalid-lane', `Lane ${lane.index + 1} has no acres; lay the plan out again before computing amounts.`);
 		return lane.acres;
 	};
-
-	// Seed, grouped by crop and variety.
 	const groups = new Map<string, { crop: string; variety: string | null; lanes: number[]; acres: number; seeds: number }>();
 	for (const a of assignments) {
 		const lane = byIndex.get(a.laneIndex);
@@ -181,6 +167,44 @@ export function seedAndFertilizerQuantities(
 			bags: ceilToWhole(estimate.exactUnits / unitsPerBag)
 		};
 	});
+
+	return { varieties, notes };
+}
+
+/**
+ * Seed and fertilizer amounts for a field: per variety seeds, units (exact and whole) and bags;
+ * per fertilizer line gallons (entered gal/ac × acres where the line is on) and pounds of N
+ * (lb/gal × %N); totals per field. Arithmetic only, through the agronomy helpers: rates are the
+ * farmer's, never a recommendation.
+ *
+ * Sources: seed units = acres × seeds/ac ÷ seeds per unit [REFERENCES §2, K]; seeds per unit
+ * corn 80,000 / soybean 140,000 are common practice (override per crop); lb N/ac = gal/ac ×
+ * lb/gal × %N ÷ 100 (J. Camberato, Purdue Extension 2023).
+ *
+ * Where a line is on: from `options.passes` when given (share of each lane's rows the line runs on);
+ * otherwise from the planter: the share of units carrying the lane's crop that have the line on.
+ *
+ * @throws EquipmentError('invalid-lane') for an assigned lane without acres; 'invalid-rate' for a bad rate
+ * @example
+ * seedAndFertilizerQuantities(lanes, assignments, planter, { rates: { n: { gallonsPerAcre: 15, product: 'uan-32' } } })
+ *   .fertilizer[0].poundsNPerAcre // 53.09
+ */
+export function seedAndFertilizerQuantities(
+	lanes: readonly (LaneInput | PlanLane)[],
+	assignments: readonly LaneAssignment[],
+	planter: PlanterSetup,
+	options: QuantityOptions = {}
+): FieldQuantities {
+	const checked = checkPlanter(planter);
+	const planLanes = resolveLanes(lanes);
+	const byIndex = new Map(planLanes.map((l) => [l.index, l]));
+	const notes: string[] = [];
+	const acresOf = (lane: PlanLane): number => {
+		if (lane.acres === null || !(lane.acres >= 0)) throw new EquipmentError('invalid-lane', `Lane ${lane.index + 1} has no acres; lay the plan out again before computing amounts.`);
+		return lane.acres;
+	};
+
+	const { varieties } = seedQuantities(planLanes, assignments, options, notes);
 
 	// Fertilizer, per line with an entered rate.
 	const fertilizer: FertilizerQuantity[] = [];

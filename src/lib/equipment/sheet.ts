@@ -2,7 +2,7 @@ import type { SheetCheck, SheetPass, SheetQuantity } from '../sheet/types';
 import type { EquipmentCheck } from './checks';
 import type { PlannedPass } from './passes';
 import { checkPlanter, seedLabel } from './planter';
-import type { FieldQuantities } from './quantities';
+import type { FieldQuantities, VarietyQuantity } from './quantities';
 import type { PlanterSetup } from './types';
 import { formatNumber } from './words';
 
@@ -44,17 +44,7 @@ export function toSheetChecks(checks: readonly EquipmentCheck[]): SheetCheck[] {
  * @example toSheetQuantities(q)[0] // { label: 'Corn — hybrid A', amount: '34.0 units (2,720,000 seeds)', detail: '…' }
  */
 export function toSheetQuantities(q: FieldQuantities): SheetQuantity[] {
-	const seed = q.varieties.map((v): SheetQuantity => {
-		const label = `${v.crop.charAt(0).toUpperCase()}${v.crop.slice(1)} — ${v.variety ?? 'variety not set'}`;
-		const seeds = `${formatNumber(Math.round(v.seeds))} seeds`;
-		if (v.unitsExact === null || v.seedsPerUnit === null) return { label, amount: seeds, detail: `${formatNumber(v.acres, 2)} ac; no seeds-per-unit figure entered for ${v.crop}.` };
-		const bags = v.unitsPerBag === 1 ? '' : `; ${formatNumber(v.bags ?? 0)} bags of ${formatNumber(v.unitsPerBag)} units`;
-		return {
-			label,
-			amount: `${formatNumber(v.unitsExact, 1)} units (${seeds})`,
-			detail: `${formatNumber(v.acres, 2)} ac × ${formatNumber(Math.round(v.averageSeedsPerAcre))} seeds/ac (entered) ÷ ${formatNumber(v.seedsPerUnit)} seeds per unit (${v.seedsPerUnitBasis}); ${formatNumber(v.unitsWhole ?? 0)} whole units${bags}.`
-		};
-	});
+	const seed = toSheetSeedQuantities(q.varieties);
 	const fert = q.fertilizer.map((f): SheetQuantity => {
 		const n = f.poundsN === null ? '' : ` · ${formatNumber(f.poundsN, 1)} lb N`;
 		const analysis = f.poundsNPerAcre === null ? 'no analysis entered' : `${formatNumber(f.poundsPerGallon ?? 0, 2)} lb/gal (${f.densityBasis}) × ${formatNumber(f.percentN ?? 0)} % N = ${formatNumber(f.poundsNPerAcre, 2)} lb N/ac`;
@@ -65,4 +55,19 @@ export function toSheetQuantities(q: FieldQuantities): SheetQuantity[] {
 		};
 	});
 	return [...seed, ...fert];
+}
+
+/** Seed lines of the sheet (also used alone when the farm has no planter). */
+export function toSheetSeedQuantities(varieties: readonly VarietyQuantity[]): SheetQuantity[] {
+	return varieties.map((v): SheetQuantity => {
+		const label = `${v.crop.charAt(0).toUpperCase()}${v.crop.slice(1)} — ${v.variety ?? 'variety not set'}`;
+		const seeds = `${formatNumber(Math.round(v.seeds))} seeds`;
+		if (v.unitsExact === null || v.seedsPerUnit === null) return { label, amount: seeds, detail: `${formatNumber(v.acres, 2)} ac; no seeds-per-unit figure entered for ${v.crop}.` };
+		const bags = v.unitsPerBag === 1 ? '' : `; ${formatNumber(v.bags ?? 0)} bags of ${formatNumber(v.unitsPerBag)} units`;
+		return {
+			label,
+			amount: `${formatNumber(v.unitsExact, 1)} units (${seeds})`,
+			detail: `${formatNumber(v.acres, 2)} ac × ${formatNumber(Math.round(v.averageSeedsPerAcre))} seeds/ac (entered) ÷ ${formatNumber(v.seedsPerUnit)} seeds per unit (${v.seedsPerUnitBasis}); ${formatNumber(v.unitsWhole ?? 0)} whole units${bags}.`
+		};
+	});
 }

@@ -15,9 +15,10 @@ import {
 	toSheetChecks,
 	toSheetPasses,
 	toSheetQuantities,
+	toSheetSeedQuantities,
+	seedQuantities,
 	type LineRate
 } from '../equipment/index';
-import { seedNeeds } from '../plans/seed-needs';
 
 export const SHEET_CAUTIONS = [
 	'The label is the law: read and follow every seed-treatment, fertilizer and pesticide label, including restricted-entry and grazing intervals. Rates on this sheet are what the farm entered; they are not recommendations.',
@@ -61,11 +62,7 @@ function hazards(src: SheetSource): string[] {
 }
 
 function seedOnlyQuantities(src: SheetSource): SheetQuantity[] {
-	return seedNeeds(src.plan.lanes).map((n) => ({
-		label: `${n.crop} — ${n.variety ?? 'variety not set'}`,
-		amount: n.exactUnits !== null ? `${n.exactUnits.toFixed(1)} units (${n.wholeUnits} whole)` : `${n.acres.toFixed(2)} ac`,
-		detail: n.seedsPerUnit ? `${n.acres.toFixed(2)} ac × entered populations ÷ ${n.seedsPerUnit.toLocaleString('en-US')} seeds per unit` : 'no population set'
-	}));
+	return toSheetSeedQuantities(seedQuantities(src.plan.lanes, src.plan.assignments).varieties);
 }
 
 function listOf(items: (string | number)[], max = 10): string {
