@@ -45,3 +45,15 @@ test.describe('on a phone', () => {
 		expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
 	});
 });
+
+test.describe('plan page on a phone', () => {
+	test.use({ viewport: { width: 390, height: 844 } });
+	test('nothing widens the page: wide tables scroll inside their box', async ({ page }) => {
+		await apiSignIn(page.request, 'owner');
+		await page.goto(`/farms/${DEMO_FARM_ID}/fields/5a1e0000-0000-4000-8000-0000000001f2/plans/2026`);
+		await expect(page.getByTestId('lane-table')).toBeVisible();
+		expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+		const map = (await page.getByRole('region', { name: /Lanes of Creek Bend/ }).boundingBox())!;
+		expect(map.x + map.width).toBeLessThanOrEqual(390);
+	});
+});
