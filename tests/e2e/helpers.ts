@@ -51,6 +51,8 @@ export async function signUp(page: Page, name: string, email: string, password =
 	await page.getByLabel('E-mail').fill(email);
 	await page.getByLabel('Password').fill(password);
 	await page.getByRole('button', { name: 'Create account' }).click();
+	// The session cookie exists only once the form post has answered with its redirect.
+	await page.waitForURL((url) => !url.pathname.startsWith('/sign-up'));
 }
 
 /** A context whose every request is recorded, to prove nothing leaves 127.0.0.1. */
