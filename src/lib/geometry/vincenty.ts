@@ -10,6 +10,17 @@ const F = WGS84_F;
 const B = A * (1 - F);
 const DEG = Math.PI / 180;
 
+/** Vincenty's Δσ series (Vincenty 1975, eq. 6), shared by the inverse and direct problems. */
+function deltaSigma(bigB: number, sinSigma: number, cosSigma: number, cos2SigmaM: number): number {
+	return (
+		bigB * sinSigma *
+		(cos2SigmaM +
+			(bigB / 4) *
+				(cosSigma * (-1 + 2 * cos2SigmaM * cos2SigmaM) -
+					(bigB / 6) * cos2SigmaM * (-3 + 4 * sinSigma * sinSigma) * (-3 + 4 * cos2SigmaM * cos2SigmaM)))
+	);
+}
+
 /** Inverse problem: distance (m) and initial azimuth (rad) from point 1 to point 2; null if it does not converge (near-antipodal). */
 export function vincentyInverse(
 	lon1: number,
@@ -41,12 +52,7 @@ export function vincentyInverse(
 			const u2 = (cos2Alpha * (A * A - B * B)) / (B * B);
 			const bigA = 1 + (u2 / 16384) * (4096 + u2 * (-768 + u2 * (320 - 175 * u2)));
 			const bigB = (u2 / 1024) * (256 + u2 * (-128 + u2 * (74 - 47 * u2)));
-			const dSigma =
-				bigB * sinSigma *
-				(cos2SigmaM +
-					(bigB / 4) *
-						(cosSigma * (-1 + 2 * cos2SigmaM * cos2SigmaM) -
-							(bigB / 6) * cos2SigmaM * (-3 + 4 * sinSigma * sinSigma) * (-3 + 4 * cos2SigmaM * cos2SigmaM)));
+			const dSigma = deltaSigma(bigB, sinSigma, cosSigma, cos2SigmaM);
 			const s = B * bigA * (sigma - dSigma);
 			const azimuth1 = Math.atan2(cosU2 * Math.sin(lambda), cosU1 * sinU2 - sinU1 * cosU2 * Math.cos(lambda));
 			return { s, azimuth1 };
@@ -72,12 +78,7 @@ export function vincentyDirect(lon1: number, lat1: number, azimuth1: number, s: 
 		cos2SigmaM = Math.cos(2 * sigma1 + sigma);
 		sinSigma = Math.sin(sigma);
 		cosSigma = Math.cos(sigma);
-		const dSigma =
-			bigB * sinSigma *
-			(cos2SigmaM +
-				(bigB / 4) *
-					(cosSigma * (-1 + 2 * cos2SigmaM * cos2SigmaM) -
-						(bigB / 6) * cos2SigmaM * (-3 + 4 * sinSigma * sinSigma) * (-3 + 4 * cos2SigmaM * cos2SigmaM)));
+		const dSigma = deltaSigma(bigB, sinSigma, cosSigma, cos2SigmaM);
 		const next = s / (B * bigA) + dSigma;
 		if (Math.abs(next - sigma) < 1e-12) { sigma = next; break; }
 		sigma = next;

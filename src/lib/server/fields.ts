@@ -218,14 +218,16 @@ export async function deleteField(access: FarmAccess, fieldId: string): Promise<
 	});
 }
 
-export async function listBoundaryVersions(access: FarmAccess, fieldId: string): Promise<BoundaryVersion[]> {
-	await getField(access, fieldId);
-	const rows = await db()('field_boundary_versions as v')
+function boundaryVersions(access: FarmAccess, fieldId: string) {
+	return db()('field_boundary_versions as v')
 		.leftJoin('users as u', 'u.id', 'v.created_by')
 		.where({ 'v.field_id': fieldId, 'v.farm_id': access.farm.id })
-		.orderBy('v.version', 'desc')
 		.select('v.*', 'u.name as created_by_name');
-	return rows.map((r) => ({
+}
+
+// eslint-disable-next-line @typescript-eslint/no-explicit-any
+function toBoundaryVersion(r: any): BoundaryVersion {
+	return {
 		version: r.version,
 		boundary: r.boundary,
 		exclusions: r.exclusions,
@@ -234,13 +236,20 @@ export async function listBoundaryVersions(access: FarmAccess, fieldId: string):
 		reason: r.reason,
 		createdAt: r.created_at,
 		createdByName: r.created_by_name
-	}));
+	};
 }
 
+export async function listBoundaryVersions(access: FarmAccess, fieldId: string): Promise<BoundaryVersion[]> {
+	await getField(access, fieldId);
+	return (await boundaryVersions(access, fieldId).orderBy('v.version', 'desc')).map(toBoundaryVersion);
+}
+
+/** One outline of the field's history (every plan load reads this; no need to fetch them all). */
 export async function getBoundaryVersion(access: FarmAccess, fieldId: string, version: number): Promise<BoundaryVersion> {
-	const found = (await listBoundaryVersions(access, fieldId)).find((v) => v.version === version);
-	if (!found) throw notFound('boundary version');
-	return found;
+	await getField(access, fieldId);
+	const row = await boundaryVersions(access, fieldId).where('v.version', version).first();
+	if (!row) throw notFound('boundary version');
+	return toBoundaryVersion(row);
 }
 
 export { AppError };
