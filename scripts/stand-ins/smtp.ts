@@ -4,17 +4,8 @@ import { SMTPServer } from 'smtp-server';
 import { simpleParser } from 'mailparser';
 import http from 'node:http';
 import { randomUUID } from 'node:crypto';
-
-export interface CapturedMessage {
-	id: string;
-	receivedAt: string;
-	from: string;
-	to: string[];
-	subject: string;
-	text: string;
-	html: string | null;
-	attachments: { filename: string; contentType: string; size: number; base64: string }[];
-}
+// The message shape is the app's; the stand-in only fills it in.
+import type { CapturedMessage } from '../../src/lib/mailbox';
 
 const KEEP = 500;
 
@@ -81,7 +72,11 @@ export async function startMailStandIn(opts: { host: string; smtpPort: number; h
 		api.once('error', reject);
 		api.listen(opts.httpPort, opts.host, () => resolve());
 	});
+	// Port 0 picks a free port; callers (tests) learn which from here.
+	const portOf = (server: { address(): unknown }) => (server.address() as { port: number }).port;
 	return {
+		smtpPort: portOf(smtp.server),
+		httpPort: portOf(api),
 		close: async () => {
 			await new Promise<void>((r) => smtp.close(() => r()));
 			await new Promise<void>((r) => api.close(() => r()));

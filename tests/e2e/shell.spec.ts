@@ -17,15 +17,23 @@ test('a user of two farms switches between them from the header', async ({ page 
 	await expect(page.getByRole('heading', { level: 1, name: 'Bravo Bottoms test' })).toBeVisible();
 });
 
-test('the dev mailbox lists what the local SMTP stand-in caught', async ({ page, request }) => {
-	await page.goto('/forgot-password');
-	await page.getByLabel('E-mail').fill('owner@demo.stripwright.test');
-	await page.getByRole('button', { name: 'Send reset link' }).click();
-	await waitForMail(request, 'owner@demo.stripwright.test', /Reset your Stripwright password/);
+test('the dev mailbox shows a signed-in user only the mail addressed to them', async ({ page, request }) => {
+	await page.goto('/dev/mailbox');
+	await expect(page).toHaveURL(/\/sign-in\?redirectTo=%2Fdev%2Fmailbox$/);
+	const email = uniqueEmail('mailbox');
+	await signUp(page, 'Mailbox Reader', email);
+	for (const to of [email, 'owner@demo.stripwright.test']) {
+		await page.goto('/forgot-password');
+		await page.getByLabel('E-mail').fill(to);
+		await page.getByRole('button', { name: 'Send reset link' }).click();
+		await waitForMail(request, to, /Reset your Stripwright password/);
+	}
 	await page.goto('/dev/mailbox');
 	await expect(page.getByRole('heading', { name: 'Dev mailbox' })).toBeVisible();
-	await expect(page.getByText('Reset your Stripwright password').first()).toBeVisible();
-	await expect(page.getByText('to owner@demo.stripwright.test').first()).toBeVisible();
+	const resets = page.getByRole('listitem').filter({ hasText: 'Reset your Stripwright password' });
+	await expect(resets).toHaveCount(1);
+	await expect(resets.getByText(`to ${email} ·`)).toBeVisible();
+	await expect(page.getByText('owner@demo.stripwright.test')).toHaveCount(0);
 });
 
 test.describe('on a phone', () => {

@@ -24,12 +24,6 @@ export async function sendMail(mail: OutgoingMail) {
 	await transporter().sendMail({ from: mailFrom(), ...mail });
 }
 
-/** The dev mailbox exists only when mail goes to the local stand-in. */
-export function mailboxUrl(): string | null {
-	const url = process.env.MAILBOX_URL;
-	return url && /^http:\/\/(127\.0\.0\.1|localhost)(:\d+)?$/.test(url) ? url : null;
-}
-
 /** The public address of the app, for links in e-mails. */
 export function appOrigin(fallback: string): string {
 	return process.env.ORIGIN ?? fallback;

@@ -1,17 +1,23 @@
 import { error } from '@sveltejs/kit';
 import type { PageServerLoad } from './$types';
-import { mailboxUrl } from '$lib/server/mail';
-import type { CapturedMessage } from '../../../../scripts/stand-ins/smtp';
+import { requireUser } from '$lib/server/access';
+import { devMailboxUrl } from '$lib/server/dev-mailbox';
+import type { CapturedMessage } from '$lib/mailbox';
 
-// Only exists while e-mail goes to the local stand-in; in production SMTP_URL points elsewhere.
-export const load: PageServerLoad = async ({ fetch, url }) => {
-	const base = mailboxUrl();
-	if (!base) error(404, { message: 'The dev mailbox is only there when the local e-mail stand-in is in use.', code: 'not_found' });
-	const res = await fetch(`${base}/messages`);
-	const messages = (await res.json()) as CapturedMessage[];
-	const selected = url.searchParams.get('id');
+// Only on a machine that serves itself to itself, and only the signed-in user's own mail:
+// reset and invitation links are keys to accounts.
+export const load: PageServerLoad = async (event) => {
+	const base = devMailboxUrl();
+	if (!base) error(404, { message: 'This page does not exist.', code: 'not_found' });
+	const user = requireUser(event);
+	const own = user.email.toLowerCase();
+	const res = await event.fetch(`${base}/messages?to=${encodeURIComponent(own)}`);
+	if (!res.ok) error(502, { message: 'The local e-mail stand-in did not answer; is it running?', code: 'mailbox_unavailable' });
+	const messages = ((await res.json()) as CapturedMessage[]).filter((m) => m.to.some((a) => a.toLowerCase() === own));
+	const selected = event.url.searchParams.get('id');
 	return {
-		messages: messages.map((m) => ({ id: m.id, receivedAt: m.receivedAt, to: m.to, subject: m.subject, text: m.text, attachments: m.attachments.map((a) => ({ filename: a.filename, size: a.size })) })),
+		email: user.email,
+		messages: messages.map((m) => ({ id: m.id, receivedAt: m.receivedAt, to: m.to.filter((a) => a.toLowerCase() === own), subject: m.subject, text: m.text, attachments: m.attachments.map((a) => ({ filename: a.filename, size: a.size })) })),
 		selected
 	};
 };
