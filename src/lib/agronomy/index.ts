@@ -20,6 +20,7 @@ export {
 	twinRowSeedSpacingIn,
 	seedUnits,
 	seedUnitEstimate,
+	wholeUnitsToBuy,
 	SEED_UNIT_PRESETS,
 	type SeedUnitCrop,
 	type SeedUnitPreset,

@@ -1,4 +1,4 @@
-import { requireOneOf, requirePositive } from './validate.js';
+import { requireNonNegative, requireOneOf, requirePositive } from './validate.js';
 
 /** Square inches in one acre: 43,560 sq ft × 144. */
 const SQUARE_INCHES_PER_ACRE = 6_272_640;
@@ -134,6 +134,21 @@ export interface SeedUnitEstimate {
 }
 
 /**
+ * The one rule for rounding a seed amount up to whole units (or bags): round to 1/10,000 of a
+ * unit first, then up. Lane acres are ellipsoidal and carry noise far below a ten-thousandth of a
+ * unit (8 corn kernels), which must not buy another bag: 34.00004 units are 34, 34.0002 are 35.
+ * Every place that shows whole units (plan page, seeding sheet, equipment amounts) goes through here.
+ *
+ * @param exactUnits units (or bags) needed, unrounded, zero or more
+ * @returns whole units to buy
+ * @example wholeUnitsToBuy(34.00004) // 34
+ */
+export function wholeUnitsToBuy(exactUnits: number): number {
+	const units = requireNonNegative('units needed', exactUnits);
+	return Math.ceil(Number(units.toFixed(4)));
+}
+
+/**
  * Seed units for an area, exact and rounded up to whole units. Give `seedsPerUnit` to override
  * the crop's preset; give at least one of `crop` and `seedsPerUnit`.
  *
@@ -154,7 +169,6 @@ export function seedUnitEstimate(p: {
 		perUnit = SEED_UNIT_PRESETS[requireOneOf('crop', p.crop, SEED_UNIT_CROPS, 'unknown_crop')].seedsPerUnit;
 	}
 	const exactUnits = seedUnits(p.acres, p.seedsPerAcre, perUnit);
-	// Trim floating-point dust so that an exact 34 does not become 35.
-	const wholeUnits = Math.ceil(Number(exactUnits.toPrecision(12)));
+	const wholeUnits = wholeUnitsToBuy(exactUnits);
 	return { seeds: p.acres * p.seedsPerAcre, seedsPerUnit: perUnit, exactUnits, wholeUnits };
 }

@@ -1,12 +1,11 @@
 import { equipmentFit } from '../geometry/index';
-import type { SheetCheck } from '../sheet/types';
 import { isPlantingLane, resolveLanes, sameCrop, type LaneInput, type PlanLane } from './lanes';
 import { driveBackEmptyMessage, type PassUnit, type PlannedPass } from './passes';
 import { checkPlanter } from './planter';
-import type { PlanterSetup } from './types';
+import type { CheckFinding, CheckKind, PlanterSetup } from './types';
 import { feet, feetWide, inches, laneLabel, unitList } from './words';
 
-/** Finer than the sheet's `kind`; the sheet gets the nearest kind through {@link toSheetChecks}. */
+/** Finer than a finding's `kind`; each problem is listed under the nearest kind (`KIND_OF`). */
 export type CheckProblem =
 	| 'fertilizer_wrong_crop'
 	| 'seed_wrong_crop'
@@ -19,8 +18,8 @@ export type CheckProblem =
 	| 'rows_not_planted'
 	| 'no_lanes';
 
-/** A sheet check with the pass and every row unit it concerns (`unit` is the first of them). */
-export interface EquipmentCheck extends SheetCheck {
+/** A finding with the pass and every row unit it concerns (`unit` is the first of them). */
+export interface EquipmentCheck extends CheckFinding {
 	problem: CheckProblem;
 	passNumber: number | null;
 	units: number[];
@@ -28,7 +27,7 @@ export interface EquipmentCheck extends SheetCheck {
 	overhangIn?: number;
 }
 
-const SHEET_KIND: Record<CheckProblem, SheetCheck['kind']> = {
+const KIND_OF: Record<CheckProblem, CheckKind> = {
 	fertilizer_wrong_crop: 'fertilizer_wrong_crop',
 	seed_wrong_crop: 'seed_wrong_crop',
 	seed_in_non_crop_lane: 'seed_wrong_crop',
@@ -79,7 +78,7 @@ export function checkPasses(passes: readonly CheckablePass[], lanes: readonly (L
 	const planLanes = resolveLanes(lanes);
 	const byIndex = new Map(planLanes.map((l) => [l.index, l]));
 	const checks: EquipmentCheck[] = [];
-	const add = (c: Omit<EquipmentCheck, 'kind' | 'unit'>) => checks.push({ ...c, kind: SHEET_KIND[c.problem], unit: c.units[0] ?? null });
+	const add = (c: Omit<EquipmentCheck, 'kind' | 'unit'>) => checks.push({ ...c, kind: KIND_OF[c.problem], unit: c.units[0] ?? null });
 
 	if (!planLanes.some((l) => isPlantingLane(l.kind) && l.rowPositionsIn.length > 0)) {
 		add({ severity: 'stop', problem: 'no_lanes', message: 'No crop or cover lane with rows lies in this field, so there is nothing for the planter to plant. Check the plan\'s pattern.', laneIndex: null, passNumber: null, units: [] });

@@ -1,8 +1,7 @@
 import { equipmentFit, type LaneKind } from '../geometry/index';
-import type { SheetCheck } from '../sheet/types';
 import { EquipmentError } from './errors';
 import type { LaneInput, PlanLane } from './lanes';
-import { EQUIPMENT_KIND_LABELS, type Equipment, type EquipmentKind } from './types';
+import { EQUIPMENT_KIND_LABELS, type CheckFinding, type Equipment, type EquipmentKind } from './types';
 import { feet, feetWide, inches, laneLabel } from './words';
 
 /** An implement as the fit check needs it; an `Equipment` record fits as is. */
@@ -102,15 +101,15 @@ export function implementChecks(
 }
 
 /**
- * The implement fits that need attention, as sheet checks ('warn'), named by implement.
+ * The implement fits that need attention, as findings ('warn'), named by implement.
  *
  * @example implementFitChecks(implementChecks(lanes, [drill])) // [{ severity: 'warn', kind: 'overhang', … }]
  */
-export function implementFitChecks(reports: readonly ImplementFitReport[]): SheetCheck[] {
+export function implementFitChecks(reports: readonly ImplementFitReport[]): CheckFinding[] {
 	return reports.flatMap((r) =>
 		r.lanes
 			.filter((f) => !f.fits)
-			.map((f): SheetCheck => ({
+			.map((f): CheckFinding => ({
 				severity: 'warn',
 				kind: f.overhangEachSideIn > 0 ? 'overhang' : 'partial_pass',
 				message: `${r.implement.name}: ${f.message}`,

@@ -4,11 +4,11 @@
  * Pure functions, no I/O, relative imports only: runs in the browser, the server and plain Node.
  * Amounts are arithmetic on the farmer's entered rates, never recommendations.
  */
-export type { Equipment, EquipmentKind, FertilizerLine, PlanterSetup, RowUnit } from './types';
+export type { CheckFinding, CheckKind, CheckSeverity, Equipment, EquipmentKind, FertilizerLine, PlanterSetup, RowUnit } from './types';
 export { EQUIPMENT_KINDS, EQUIPMENT_KIND_LABELS } from './types';
 export { EquipmentError, type EquipmentErrorCode } from './errors';
 export { resolveLanes, type LaneInput, type LaneRows, type PlanLane } from './lanes';
-export { checkPlanter, unitOffsetFt, type CheckedPlanter, type FieldEnd } from './planter';
+export { checkPlanter, seedLabel, unitOffsetFt, type CheckedPlanter, type FieldEnd } from './planter';
 export {
 	planPasses,
 	passSummary,
@@ -32,4 +32,4 @@ export {
 	type QuantityOptions,
 	type VarietyQuantity
 } from './quantities';
-export { toSheetChecks, toSheetPasses, toSheetQuantities, toSheetSeedQuantities } from './sheet';
+export { formatNumber } from './words';

@@ -6,6 +6,7 @@ import {
 	poundsNitrogenTotal,
 	SEED_UNIT_PRESETS,
 	seedUnitEstimate,
+	wholeUnitsToBuy,
 	type NitrogenProductPreset
 } from '../agronomy/index';
 import type { LaneAssignment } from '../plans/types';
@@ -86,13 +87,6 @@ export interface FieldQuantities {
 	notes: string[];
 }
 
-/**
- * Rounds up to whole units after dropping less than 1/10,000 of a unit (8 corn kernels): lane
- * acres are ellipsoidal and carry noise far below that, which must not buy an extra bag
- * (80.00000005 ac × 34,000 ÷ 80,000 is 34 units, not 35).
- */
-const ceilToWhole = (x: number): number => Math.ceil(Number(x.toFixed(4)));
-
 function presetSeedsPerUnit(crop: string): number | null {
 	const c = crop.trim().toLowerCase();
 	if (c === 'corn') return SEED_UNIT_PRESETS.corn.seedsPerUnit;
@@ -163,8 +157,8 @@ export function seedQuantities(
 			seedsPerUnit: estimate.seedsPerUnit,
 			seedsPerUnitBasis: entered !== undefined ? 'entered' : 'common practice',
 			unitsExact: estimate.exactUnits,
-			unitsWhole: ceilToWhole(estimate.exactUnits),
-			bags: ceilToWhole(estimate.exactUnits / unitsPerBag)
+			unitsWhole: estimate.wholeUnits,
+			bags: wholeUnitsToBuy(estimate.exactUnits / unitsPerBag)
 		};
 	});
 

@@ -54,3 +54,19 @@ export interface Equipment {
 	isDefaultPlanter: boolean;
 	version: number;
 }
+
+/** How urgent a check is: 'stop' keeps the planter from rolling, 'warn' asks for a look. */
+export type CheckSeverity = 'stop' | 'warn';
+
+/** The broad kind a check is listed under wherever checks are shown (sheet, planning board, record book). */
+export type CheckKind = 'fertilizer_wrong_crop' | 'seed_wrong_crop' | 'overhang' | 'partial_pass' | 'spacing_mismatch' | 'no_lanes' | 'other';
+
+/** One finding of an equipment check, as every list of checks shows it. */
+export interface CheckFinding {
+	severity: CheckSeverity;
+	kind: CheckKind;
+	message: string;
+	laneIndex: number | null;
+	/** The first row unit concerned, or null. */
+	unit: number | null;
+}

@@ -12,13 +12,10 @@ import {
 	implementFitChecks,
 	planPasses,
 	seedAndFertilizerQuantities,
-	toSheetChecks,
-	toSheetPasses,
-	toSheetQuantities,
-	toSheetSeedQuantities,
 	seedQuantities,
 	type LineRate
 } from '../equipment/index';
+import { toSheetChecks, toSheetPasses, toSheetQuantities, toSheetSeedQuantities } from './passes';
 
 export const SHEET_CAUTIONS = [
 	'The label is the law: read and follow every seed-treatment, fertilizer and pesticide label, including restricted-entry and grazing intervals. Rates on this sheet are what the farm entered; they are not recommendations.',

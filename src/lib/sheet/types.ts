@@ -1,5 +1,6 @@
 // Everything the cab seeding sheet shows, already computed. The page and the PDF both draw this.
 import type { MultiPolygon, Polygon } from 'geojson';
+import type { CheckFinding } from '../equipment/types';
 import type { LngLat } from '../geometry/index';
 
 export interface SheetLane {
@@ -32,13 +33,8 @@ export interface SheetPass {
 	units: SheetPassUnit[];
 }
 
-export interface SheetCheck {
-	severity: 'stop' | 'warn';
-	kind: 'fertilizer_wrong_crop' | 'seed_wrong_crop' | 'overhang' | 'partial_pass' | 'spacing_mismatch' | 'no_lanes' | 'other';
-	message: string;
-	laneIndex: number | null;
-	unit: number | null;
-}
+/** A check as the sheet lists it: the equipment module's finding, unchanged. */
+export type SheetCheck = CheckFinding;
 
 export interface SheetQuantity {
 	label: string; // "Corn — hybrid A" or "UAN 32 %"

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { checkPasses, planPasses, toSheetChecks, type PlannedPass } from '../../../src/lib/equipment/index';
+import { checkPasses, planPasses, type PlannedPass } from '../../../src/lib/equipment/index';
+import { toSheetChecks } from '../../../src/lib/sheet/passes';
 import type { LaneSpec } from '../../../src/lib/geometry/index';
 import { corn, corn8, nitrogenLine, planter, range, rectangleLayout, soy8, soybean } from './fixtures';
 

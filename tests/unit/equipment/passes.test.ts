@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { checkPasses, EquipmentError, planPasses, toSheetPasses, type PlannedPass } from '../../../src/lib/equipment/index';
+import { checkPasses, EquipmentError, planPasses, type PlannedPass } from '../../../src/lib/equipment/index';
+import { toSheetPasses } from '../../../src/lib/sheet/passes';
 import type { LaneSpec } from '../../../src/lib/geometry/index';
 import { corn, corn8, frozen, planter, range, rectangleLayout, soy8, soybean, splitPlanter16, unitsOnByLane } from './fixtures';
 

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { NITROGEN_DENSITY_CAUTION } from '../../../src/lib/agronomy/index';
-import { EquipmentError, planPasses, seedAndFertilizerQuantities, toSheetQuantities } from '../../../src/lib/equipment/index';
+import { EquipmentError, planPasses, seedAndFertilizerQuantities } from '../../../src/lib/equipment/index';
+import { toSheetQuantities } from '../../../src/lib/sheet/passes';
 import type { Lane, LaneSpec } from '../../../src/lib/geometry/index';
 import type { LaneAssignment } from '../../../src/lib/plans/types';
 import { corn, corn8, nitrogenLine, planter, rectangleLayout, soy8, soybean, starterLine } from './fixtures';

@@ -1,10 +1,7 @@
-import type { SheetCheck, SheetPass, SheetQuantity } from '../sheet/types';
-import type { EquipmentCheck } from './checks';
-import type { PlannedPass } from './passes';
-import { checkPlanter, seedLabel } from './planter';
-import type { FieldQuantities, VarietyQuantity } from './quantities';
-import type { PlanterSetup } from './types';
-import { formatNumber } from './words';
+// The sheet's own wording of what the equipment module computed: passes, checks and amounts as
+// the cab sheet prints them. Equipment computes; the sheet formats.
+import type { SheetCheck, SheetPass, SheetQuantity } from './types';
+import { checkPlanter, formatNumber, seedLabel, type EquipmentCheck, type FieldQuantities, type PlannedPass, type PlanterSetup, type VarietyQuantity } from '../equipment/index';
 
 /**
  * Passes as the seeding sheet prints them: seed shown only where the unit is on, fertilizer lines
@@ -30,7 +27,7 @@ export function toSheetPasses(passes: readonly PlannedPass[], planter: PlanterSe
 }
 
 /**
- * Checks as the seeding sheet stores them: the sheet's coarser `kind`, first unit only.
+ * Checks as the seeding sheet stores them: the finding without the pass and unit list.
  *
  * @example toSheetChecks(checkPasses(plan.passes, plan.lanes, planter))
  */
