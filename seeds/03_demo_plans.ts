@@ -25,8 +25,21 @@ interface DemoPlan {
 	pattern: LaneSpec[];
 	headlandFt: number;
 	offsetBySeason: Record<number, number>;
-	assignments?: (laneCount: number, season: number) => LaneAssignment[];
+	assignments?: (lanes: PlannedLane[]) => LaneAssignment[];
 }
+
+type PlannedLane = { index: number; crop: string; patternIndex: number };
+
+/** The seed each crop's lanes get in the demo; a lane is given the seed of its own crop. */
+const DEMO_SEED: Record<string, { variety: string; populationPerAcre: number }> = {
+	corn: { variety: 'hybrid A (105-day)', populationPerAcre: 34_000 },
+	soybean: { variety: 'soybean line 2.1', populationPerAcre: 140_000 }
+};
+
+const seedByCrop = (lanes: PlannedLane[]): LaneAssignment[] =>
+	lanes
+		.filter((l) => DEMO_SEED[l.crop])
+		.map((l) => ({ laneIndex: l.index, ...DEMO_SEED[l.crop], trialLabel: null, ...blank }));
 
 const plans: DemoPlan[] = [
 	{
@@ -36,14 +49,7 @@ const plans: DemoPlan[] = [
 		pattern: [corn(8, 30), soybean(8)],
 		headlandFt: 40,
 		offsetBySeason: { 2025: 0, 2026: 20, 2027: 40 },
-		assignments: (n, season) =>
-			Array.from({ length: n }, (_, i) => ({
-				laneIndex: i,
-				variety: i % 2 === (season % 2 === 0 ? 0 : 1) ? 'hybrid A (105-day)' : 'soybean line 2.1',
-				populationPerAcre: i % 2 === (season % 2 === 0 ? 0 : 1) ? 34_000 : 140_000,
-				trialLabel: null,
-				...blank
-			}))
+		assignments: seedByCrop
 	},
 	{
 		fieldId: DEMO_FIELDS.north80,
@@ -62,14 +68,9 @@ const plans: DemoPlan[] = [
 		pattern: [corn(12, 60, 8), corn(10, 72, 8), corn(8, 90, 8), corn(8, 30)],
 		headlandFt: 30,
 		offsetBySeason: { 2025: 0, 2026: 3.75, 2027: 7.5 },
-		assignments: (n) =>
-			Array.from({ length: n }, (_, i) => ({
-				laneIndex: i,
-				variety: 'hybrid C (102-day)',
-				populationPerAcre: 32_000,
-				trialLabel: null,
-				...blank
-			}))
+		// Every lane is corn; the 30-in lanes are the check strips.
+		assignments: (lanes) =>
+			lanes.map((l) => ({ laneIndex: l.index, variety: 'hybrid C (102-day)', populationPerAcre: 32_000, trialLabel: l.patternIndex === 3 ? '30-in check' : null, ...blank }))
 	},
 	{
 		fieldId: DEMO_FIELDS.pasture,
@@ -78,12 +79,13 @@ const plans: DemoPlan[] = [
 		// Corn and soybean strips, each beside a 10-ft pasture lane: ewes on one, pigs on the other.
 		pattern: [corn(8, 30), pasture(10), soybean(8), pasture(10)],
 		headlandFt: 30,
-		offsetBySeason: { 2025: 0, 2026: 30, 2027: 60 }
+		offsetBySeason: { 2025: 0, 2026: 30, 2027: 60 },
+		assignments: hybridBlock
 	}
 ];
 
 /** Hybrid comparison block: the first four corn lanes of the pasture field each get a hybrid. */
-function hybridBlock(lanes: { index: number; crop: string }[]): LaneAssignment[] {
+function hybridBlock(lanes: PlannedLane[]): LaneAssignment[] {
 	const cornLanes = lanes.filter((l) => l.crop === 'corn').slice(0, 4);
 	return cornLanes.map((l, i) => ({ laneIndex: l.index, variety: `hybrid ${'ABDE'[i]}`, populationPerAcre: 34_000, trialLabel: 'hybrid comparison', ...blank }));
 }
@@ -105,12 +107,7 @@ export async function seed(knex: Knex) {
 				if (exists) continue;
 				const base = { guidance: p.guidance, pattern: p.pattern, offsetFt, headlandFt: p.headlandFt, variant: p.variant, notes: null, rebase: false };
 				const first = await savePlan(access, p.fieldId, season, { ...base, version: 0, assignments: [] });
-				let assignments = p.assignments?.(first.lanes.length, season) ?? [];
-				if (p.fieldId === DEMO_FIELDS.pasture) assignments = hybridBlock(first.lanes);
-				if (p.fieldId === DEMO_FIELDS.wideRow) {
-					// The 30-in lanes are the check strips.
-					assignments = assignments.map((a) => (first.lanes[a.laneIndex].patternIndex === 3 ? { ...a, trialLabel: '30-in check' } : a));
-				}
+				const assignments = p.assignments?.(first.lanes) ?? [];
 				if (assignments.length) await savePlan(access, p.fieldId, season, { ...base, version: first.version, assignments });
 			}
 		}
