@@ -7,7 +7,8 @@ import { loadSheet } from '$lib/server/sheet';
 import { emailSheet } from '$lib/server/sheet-mail';
 import { renderSheetPdf } from '$lib/server/sheet-pdf';
 import { requireMember } from '$lib/server/access';
-import { startMailStandIn, type CapturedMessage } from '../../scripts/stand-ins/smtp';
+import { startMailStandIn } from '../../scripts/stand-ins/smtp';
+import type { CapturedMessage } from '$lib/mailbox';
 import { fakeEvent, makeFarmWithTeam, thrown } from './helpers';
 import { rectangle } from '../fixtures/rectangle';
 
