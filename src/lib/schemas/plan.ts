@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { polygonal } from './field';
 
 const lngLat = z
 	.tuple([z.number().finite(), z.number().finite()], { message: 'A point is [longitude, latitude].' })
@@ -36,7 +37,9 @@ export const planSaveSchema = planSettingsSchema.extend({
 	assignments: z.array(assignmentSchema).max(5000).default([]),
 	notes: z.string().trim().max(2000).nullish().transform((v) => v || null),
 	/** Lay the plan out again on the field's current boundary. */
-	rebase: z.boolean().default(false)
+	rebase: z.boolean().default(false),
+	/** Lay the plan out again with today's geometry even though its settings are unchanged. */
+	relayout: z.boolean().optional()
 });
 
 export const nextSeasonSchema = z.object({
@@ -44,13 +47,10 @@ export const nextSeasonSchema = z.object({
 	variant: z.string().trim().min(1).max(40).optional()
 });
 
-export const layoutPreviewSchema = z.object({
-	boundary: z.object({ type: z.enum(['Polygon', 'MultiPolygon']), coordinates: z.array(z.any()) }),
-	exclusions: z.array(z.object({ type: z.enum(['Polygon', 'MultiPolygon']), coordinates: z.array(z.any()) })).max(200).optional(),
-	guidance: z.object({ a: z.tuple([z.number(), z.number()]), b: z.tuple([z.number(), z.number()]) }),
-	pattern: z.array(laneSpecSchema).min(1, 'The pattern needs at least one lane.').max(64),
-	offsetFt: z.number().finite().optional(),
-	headlandFt: z.number().finite().min(0).max(500).optional()
+/** The preview takes the outline and exactly the settings a saved plan takes, bounded the same way. */
+export const layoutPreviewSchema = planSettingsSchema.extend({
+	boundary: polygonal,
+	exclusions: z.array(polygonal).max(200, 'At most 200 exclusions per field.').optional()
 });
 
 export type PlanSaveInput = z.infer<typeof planSaveSchema>;

@@ -2,7 +2,7 @@ import type { MultiPolygon, Polygon } from 'geojson';
 import type { Knex } from 'knex';
 import { db } from './db';
 import { recordAudit } from './audit';
-import { canSeeField, type FarmAccess } from './access';
+import { canSeeField, isUuid, type FarmAccess } from './access';
 import { AppError, invalid, notFound, versionConflict } from './errors';
 import { GeometryError } from '../geometry/index';
 import { measureFieldShape, type Exclusion, type FieldMeasure } from '../fields/shape';
@@ -82,7 +82,7 @@ export async function listFields(access: FarmAccess): Promise<Field[]> {
 }
 
 export async function getField(access: FarmAccess, fieldId: string): Promise<Field> {
-	const row = /^[0-9a-f-]{36}$/i.test(fieldId) && canSeeField(access, fieldId) ? await scoped(access).where({ id: fieldId }).first() : undefined;
+	const row = isUuid(fieldId) && canSeeField(access, fieldId) ? await scoped(access).where({ id: fieldId }).first() : undefined;
 	if (!row) throw notFound('field');
 	return toField(row);
 }
@@ -244,11 +244,15 @@ export async function listBoundaryVersions(access: FarmAccess, fieldId: string):
 	return (await boundaryVersions(access, fieldId).orderBy('v.version', 'desc')).map(toBoundaryVersion);
 }
 
-/** One outline of the field's history (every plan load reads this; no need to fetch them all). */
+/** One outline of the field's history (every plan page reads this; no need to fetch them all). */
 export async function getBoundaryVersion(access: FarmAccess, fieldId: string, version: number): Promise<BoundaryVersion> {
-	await getField(access, fieldId);
-	const row = await boundaryVersions(access, fieldId).where('v.version', version).first();
-	if (!row) throw notFound('boundary version');
+	const row = isUuid(fieldId) && canSeeField(access, fieldId)
+		? await boundaryVersions(access, fieldId).join('fields as f', 'f.id', 'v.field_id').whereNull('f.deleted_at').where('v.version', version).first()
+		: undefined;
+	if (!row) {
+		await getField(access, fieldId); // a missing field says so, not "no boundary version"
+		throw notFound('boundary version');
+	}
 	return toBoundaryVersion(row);
 }
 

@@ -5,6 +5,7 @@ import { recordAudit } from './audit';
 import type { FarmAccess } from './access';
 import { AppError, invalid, notFound, versionConflict } from './errors';
 import { getBoundaryVersion, getField } from './fields';
+import { canSeeField, isUuid } from './access';
 import { GeometryError, layoutStrips, rotationMatrix, type Lane, type LaneSpec, type Layout, type LngLat } from '../geometry/index';
 import type { LaneAssignment } from '../plans/types';
 import type { NextSeasonInput, PlanSaveInput } from '../schemas/plan';
@@ -61,11 +62,12 @@ export function refuseLayoutError(e: GeometryError): AppError {
 	return invalid(e.message, { [key]: [e.message] });
 }
 
-export function computeLayout(
+/** Lays the plan out on an outline: only saving (or an explicit re-layout) calls this, never a read. */
+export async function computeLayout(
 	boundary: Polygon | MultiPolygon,
 	exclusions: Exclusion[],
 	settings: { guidance: { a: LngLat; b: LngLat }; pattern: LaneSpec[]; offsetFt: number; headlandFt: number }
-): Layout {
+): Promise<Layout> {
 	try {
 		return layoutStrips({
 			boundary,
@@ -89,14 +91,41 @@ function withAssignments(lanes: Lane[], assignments: LaneAssignment[]): PlanLane
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
 type Row = any;
 
-async function hydrate(access: FarmAccess, row: Row): Promise<Plan> {
-	const boundary = await getBoundaryVersion(access, row.field_id, row.boundary_version);
-	const settings = { guidance: row.guidance, pattern: row.pattern, offsetFt: row.offset_ft, headlandFt: row.headland_ft };
-	const layout = computeLayout(boundary.boundary, boundary.exclusions, settings);
-	return toPlan(row, layout);
+type Db = Knex | Knex.Transaction;
+
+const LANE_COLUMNS = [
+	'lane_index', 'pattern_index', 'kind', 'crop', 'width_ft', 'rows', 'offset_ft', 'geometry', 'acres', 'row_feet', 'border_rows',
+	'variety', 'relative_maturity', 'population_per_acre', 'seed_lot', 'trial_label', 'notes'
+];
+
+function toAssignment(r: Row): LaneAssignment | null {
+	const a = { variety: r.variety, relativeMaturity: r.relative_maturity, populationPerAcre: r.population_per_acre, seedLot: r.seed_lot, trialLabel: r.trial_label, notes: r.notes };
+	return Object.values(a).some((v) => v !== null) ? { laneIndex: r.lane_index, ...a } : null;
 }
 
-function toPlan(row: Row, layout: Layout): Plan {
+function toLane(r: Row): PlanLane {
+	return {
+		index: r.lane_index,
+		patternIndex: r.pattern_index,
+		kind: r.kind,
+		crop: r.crop,
+		widthFt: Number(r.width_ft),
+		rows: r.rows,
+		offsetFt: Number(r.offset_ft),
+		geometry: r.geometry,
+		acres: Number(r.acres),
+		rowFeet: Number(r.row_feet),
+		borderRows: r.border_rows,
+		assignment: toAssignment(r)
+	};
+}
+
+/** The plan's lanes exactly as they were saved, in order across the field. */
+async function readLanes(q: Db, planId: string): Promise<PlanLane[]> {
+	return (await q('plan_lanes').where({ plan_id: planId }).orderBy('lane_index').select(LANE_COLUMNS)).map(toLane);
+}
+
+function toPlan(row: Row, lanes: PlanLane[]): Plan {
 	return {
 		id: row.id,
 		fieldId: row.field_id,
@@ -105,23 +134,23 @@ function toPlan(row: Row, layout: Layout): Plan {
 		adopted: row.adopted,
 		guidance: row.guidance,
 		pattern: row.pattern,
-		offsetFt: row.offset_ft,
-		headlandFt: row.headland_ft,
+		offsetFt: Number(row.offset_ft),
+		headlandFt: Number(row.headland_ft),
 		boundaryVersion: row.boundary_version,
 		assignments: row.assignments ?? [],
 		notes: row.notes,
 		version: row.version,
-		fieldAcres: layout.fieldAcres,
-		plantedAcres: layout.plantedAcres,
+		fieldAcres: Number(row.field_acres),
+		plantedAcres: Number(row.planted_acres),
 		updatedAt: row.updated_at,
-		lanes: withAssignments(layout.lanes, row.assignments ?? []),
-		byCrop: layout.byCrop,
-		headlandAcres: layout.headlandAcres,
-		excludedAcres: layout.excludedAcres
+		lanes,
+		byCrop: row.by_crop,
+		headlandAcres: Number(row.headland_acres),
+		excludedAcres: Number(row.excluded_acres)
 	};
 }
 
-function planRows(trx: Knex | Knex.Transaction, access: FarmAccess, fieldId: string) {
+function planRows(trx: Db, access: FarmAccess, fieldId: string) {
 	return trx('plans').where({ farm_id: access.farm.id, field_id: fieldId }).whereNull('deleted_at');
 }
 
@@ -131,13 +160,24 @@ export async function listPlans(access: FarmAccess, fieldId: string): Promise<Pl
 	return rows.map((r: Row) => ({ id: r.id, season: r.season, variant: r.variant, adopted: r.adopted, version: r.version, plantedAcres: r.planted_acres, updatedAt: r.updated_at }));
 }
 
-/** The season's adopted plan, or the named variant. */
+/**
+ * The season's adopted plan, or the named variant, read as it was saved: the plan row and its
+ * stored lanes (two queries, whatever the lane count), never laid out again.
+ */
 export async function getPlan(access: FarmAccess, fieldId: string, season: number, variant?: string): Promise<Plan> {
-	await getField(access, fieldId);
-	const q = planRows(db(), access, fieldId).where({ season });
-	const row = await (variant ? q.whereRaw('lower(variant) = lower(?)', [variant]) : q.where({ adopted: true })).first();
-	if (!row) throw notFound(variant ? `plan variant "${variant}" for ${season}` : `adopted plan for ${season}`);
-	return hydrate(access, row);
+	if (!isUuid(fieldId) || !canSeeField(access, fieldId)) throw notFound('field');
+	const q = db()('plans as p')
+		.join('fields as f', 'f.id', 'p.field_id')
+		.whereNull('f.deleted_at')
+		.whereNull('p.deleted_at')
+		.where({ 'p.farm_id': access.farm.id, 'p.field_id': fieldId, 'p.season': season })
+		.select('p.*');
+	const row = await (variant ? q.whereRaw('lower(p.variant) = lower(?)', [variant]) : q.where({ 'p.adopted': true })).first();
+	if (!row) {
+		await getField(access, fieldId); // a missing field says so, not "no plan"
+		throw notFound(variant ? `plan variant "${variant}" for ${season}` : `adopted plan for ${season}`);
+	}
+	return toPlan(row, await readLanes(db(), row.id));
 }
 
 async function writeLanes(trx: Knex.Transaction, access: FarmAccess, planId: string, lanes: PlanLane[]) {
@@ -166,34 +206,77 @@ async function writeLanes(trx: Knex.Transaction, access: FarmAccess, planId: str
 	for (let i = 0; i < rows.length; i += 500) await trx('plan_lanes').insert(rows.slice(i, i + 500));
 }
 
+/** JSON with object keys sorted, so settings read back from jsonb compare equal to the same input. */
+function canonical(value: unknown): string {
+	return JSON.stringify(value, (_k, v) => (v && typeof v === 'object' && !Array.isArray(v) ? Object.fromEntries(Object.entries(v).sort(([x], [y]) => (x < y ? -1 : 1))) : v));
+}
+
+function sameSettings(row: Row, input: PlanSaveInput): boolean {
+	return (
+		canonical(row.guidance) === canonical(input.guidance) &&
+		canonical(row.pattern) === canonical(input.pattern) &&
+		Number(row.offset_ft) === input.offsetFt &&
+		Number(row.headland_ft) === input.headlandFt
+	);
+}
+
 /**
  * Creates (version 0) or updates a season's plan variant with optimistic concurrency: a stale
  * version gets 409 and nothing changes. The first plan of a season is adopted.
+ *
+ * The plan is laid out again only when it is new, its settings changed, it moves to the field's
+ * current outline (`rebase`) or the user asks for it (`relayout`); otherwise its stored lanes
+ * stay as they are and only their assignments change. The layout runs before the transaction,
+ * so no connection or row lock is held while geometry is computed.
  */
 export async function savePlan(access: FarmAccess, fieldId: string, season: number, input: PlanSaveInput): Promise<Plan> {
 	const field = await getField(access, fieldId);
-	return db().transaction(async (trx) => {
-		// Lock the field row: two first saves of the same season cannot both create a plan.
-		await trx('fields').where({ id: field.id }).forUpdate().first('id');
-		const current = await planRows(trx, access, fieldId).where({ season }).whereRaw('lower(variant) = lower(?)', [input.variant]).forUpdate().first();
-		const stored = current?.version ?? 0;
-		if (input.version !== stored) throw versionConflict('plan', stored, input.version);
-		const boundaryVersion = !current || input.rebase ? field.boundaryVersion : current.boundary_version;
+	const current = await planRows(db(), access, fieldId).where({ season }).whereRaw('lower(variant) = lower(?)', [input.variant]).first();
+	const stored = current?.version ?? 0;
+	if (input.version !== stored) throw versionConflict('plan', stored, input.version);
+	const boundaryVersion: number = !current || input.rebase ? field.boundaryVersion : current.boundary_version;
+	const relayout = !current || input.rebase || input.relayout || !sameSettings(current, input);
+	let layout: Layout | null = null;
+	let lanes: Lane[];
+	if (relayout) {
 		const outline = await getBoundaryVersion(access, fieldId, boundaryVersion);
-		const layout = computeLayout(outline.boundary, outline.exclusions, input);
-		const assignments = input.assignments.filter((a) => layout.lanes.some((l) => l.index === a.laneIndex));
-		const values = {
+		layout = await computeLayout(outline.boundary, outline.exclusions, input);
+		lanes = layout.lanes;
+	} else {
+		lanes = await readLanes(db(), current.id);
+	}
+	const assignments = input.assignments.filter((a) => lanes.some((l) => l.index === a.laneIndex));
+	const planLanes = withAssignments(lanes, assignments);
+
+	return db().transaction(async (trx) => {
+		// Lock the field row: two first saves of the same season cannot both create a plan, and the
+		// outline cannot change under a save that was laid out on it.
+		const locked = await trx('fields').where({ id: field.id }).forUpdate().first('boundary_version');
+		const again = await planRows(trx, access, fieldId).where({ season }).whereRaw('lower(variant) = lower(?)', [input.variant]).forUpdate().first();
+		const now = again?.version ?? 0;
+		if (now !== input.version) throw versionConflict('plan', now, input.version);
+		if ((!current || input.rebase) && locked?.boundary_version !== boundaryVersion) {
+			throw new AppError(409, 'The field outline changed while this plan was being saved. Reload and save again; nothing of yours was saved.', 'version_conflict');
+		}
+		const values: Record<string, unknown> = {
 			guidance: JSON.stringify(input.guidance),
 			pattern: JSON.stringify(input.pattern),
 			offset_ft: input.offsetFt,
 			headland_ft: input.headlandFt,
 			boundary_version: boundaryVersion,
 			assignments: JSON.stringify(assignments),
-			field_acres: layout.fieldAcres,
-			planted_acres: layout.plantedAcres,
 			notes: input.notes,
 			updated_at: trx.fn.now()
 		};
+		if (layout) {
+			Object.assign(values, {
+				field_acres: layout.fieldAcres,
+				planted_acres: layout.plantedAcres,
+				headland_acres: layout.headlandAcres,
+				excluded_acres: layout.excludedAcres,
+				by_crop: JSON.stringify(layout.byCrop)
+			});
+		}
 		let row: Row;
 		if (current) {
 			[row] = await trx('plans').where({ id: current.id }).update({ ...values, version: stored + 1 }).returning('*');
@@ -203,18 +286,17 @@ export async function savePlan(access: FarmAccess, fieldId: string, season: numb
 				.insert({ ...values, farm_id: access.farm.id, field_id: fieldId, season, variant: input.variant, adopted: !hasAdopted, version: 1, created_by: access.user.id })
 				.returning('*');
 		}
-		const plan = toPlan(row, layout);
-		await writeLanes(trx, access, row.id, plan.lanes);
+		await writeLanes(trx, access, row.id, planLanes);
 		await recordAudit(trx, {
 			farmId: access.farm.id,
 			userId: access.user.id,
 			entity: 'plan',
 			entityId: row.id,
-			action: current ? 'update' : 'create',
+			action: current ? (layout ? 'update' : 'update_assignments') : 'create',
 			before: current ? { version: current.version, pattern: current.pattern, offsetFt: current.offset_ft, headlandFt: current.headland_ft, guidance: current.guidance } : undefined,
-			after: { version: row.version, pattern: input.pattern, offsetFt: input.offsetFt, headlandFt: input.headlandFt, guidance: input.guidance }
+			after: { version: row.version, pattern: input.pattern, offsetFt: input.offsetFt, headlandFt: input.headlandFt, guidance: input.guidance, laidOut: Boolean(layout) }
 		});
-		return plan;
+		return toPlan(row, planLanes);
 	});
 }
 
@@ -253,19 +335,27 @@ export interface NextSeasonResult {
 export async function planNextSeason(access: FarmAccess, fieldId: string, season: number, input: NextSeasonInput): Promise<NextSeasonResult> {
 	const previous = await getPlan(access, fieldId, season);
 	const shiftFt = shiftFeet(previous.pattern, input.shift);
-	const exists = await planRows(db(), access, fieldId).where({ season: season + 1 }).whereRaw('lower(variant) = lower(?)', [input.variant ?? 'main']).first('id');
-	if (exists) throw new AppError(409, `${season + 1} already has a plan${input.variant ? ` named "${input.variant}"` : ''}. Open it, or name a new variant.`, 'already_planned');
-	const plan = await savePlan(access, fieldId, season + 1, {
-		guidance: previous.guidance,
-		pattern: previous.pattern,
-		offsetFt: Math.round((previous.offsetFt + shiftFt) * 10_000) / 10_000,
-		headlandFt: previous.headlandFt,
-		version: 0,
-		variant: input.variant ?? 'main',
-		assignments: [],
-		notes: null,
-		rebase: true
-	});
+	const variant = input.variant ?? 'main';
+	const alreadyPlanned = () => new AppError(409, `${season + 1} already has a plan${input.variant ? ` named "${input.variant}"` : ''}. Open it, or name a new variant.`, 'already_planned');
+	if (await planRows(db(), access, fieldId).where({ season: season + 1 }).whereRaw('lower(variant) = lower(?)', [variant]).first('id')) throw alreadyPlanned();
+	let plan: Plan;
+	try {
+		plan = await savePlan(access, fieldId, season + 1, {
+			guidance: previous.guidance,
+			pattern: previous.pattern,
+			offsetFt: Math.round((previous.offsetFt + shiftFt) * 10_000) / 10_000,
+			headlandFt: previous.headlandFt,
+			version: 0,
+			variant,
+			assignments: [],
+			notes: null,
+			rebase: true
+		});
+	} catch (e) {
+		// Another request planned the season between the check above and the save.
+		if (e instanceof AppError && e.code === 'version_conflict') throw alreadyPlanned();
+		throw e;
+	}
 	const rotation = rotationMatrix(previous.lanes, plan.lanes);
 	return { plan, rotation, warnings: rotationWarnings(previous.lanes, plan.lanes, rotation, true), shiftFt, shiftDescription: describeShift(previous.pattern, input.shift) };
 }
