@@ -2,7 +2,7 @@
 // drawing and on the server before anything is stored.
 import { featureCollection, intersect, union } from '@turf/turf';
 import type { Feature, MultiPolygon, Polygon } from 'geojson';
-import { checkOutline, geodesicAcres, GeometryError } from '../geometry/index';
+import { checkOutline, checkVertexCount, countPositions, geodesicAcres, GeometryError } from '../geometry/index';
 import { MAX_FIELD_ACRES } from '../geometry/validate';
 
 /** Smaller than this is a drawing slip, not a field. */
@@ -35,6 +35,7 @@ export interface FieldMeasure {
  * @throws GeometryError with a message saying what is wrong and where
  */
 export function measureFieldShape(shape: FieldShape): FieldMeasure {
+	checkVertexCount(shape.exclusions.reduce((n, x) => n + countPositions(x.geometry), countPositions(shape.boundary)), 'field boundary with its exclusions');
 	checkOutline(shape.boundary, 'field boundary');
 	const acres = geodesicAcres(shape.boundary);
 	if (!(acres >= MIN_FIELD_ACRES)) {

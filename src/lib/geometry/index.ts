@@ -4,7 +4,8 @@
  */
 export type { LngLat, LaneKind, LaneSpec, LayoutInput, Lane, Layout, CropTotals } from './types';
 export { GeometryError, type GeometryErrorCode } from './errors';
-export { layoutStrips } from './layout';
+export { layoutStrips, MAX_LANES } from './layout';
+export { checkVertexCount, countPositions, MAX_FIELD_VERTICES } from './validate';
 export { geodesicAcres, geodesicSquareMeters } from './area';
 export { checkOutline } from './outline';
 export { rotationMatrix, type RotationCell } from './rotation';

@@ -17,6 +17,8 @@ const SLIVER_M2 = 0.09290304; // 1 sq ft
 const MIN_AB_M = 1;
 /** A and B must lie within this distance of the field's outline box (keeps the local plane accurate). */
 const MAX_AB_DISTANCE_M = 5_000;
+/** Lanes one layout may cut; far beyond any field (a 20,000-acre section in 2-ft lanes is ~15,000). */
+export const MAX_LANES = 20_000;
 
 type Polygonal = Polygon | MultiPolygon;
 
@@ -115,7 +117,17 @@ function cutLanes(input: LayoutInput, planted: PlaneShape, a: XY, b: XY, inverse
 	const plantedST = orientShape(mapShape(planted, frame.toST));
 	const [s0, , s1] = bboxOf(plantedST);
 	const { starts, widths, repeatFt } = patternEdgesFt(input.pattern);
-	const offsetFt = input.offsetFt ?? 0;
+	// Only the offset's place within one repeat matters: reducing it keeps the lane counter small
+	// and exact whatever offset is asked for.
+	const offsetFt = (input.offsetFt ?? 0) % repeatFt;
+	const acrossFt = metersToFeet(s1 - s0);
+	const lanesAcross = Math.round((acrossFt / repeatFt) * starts.length);
+	if (!(lanesAcross <= MAX_LANES)) {
+		throw new GeometryError(
+			'too-many-lanes',
+			`This pattern would cut the field into about ${Number.isFinite(lanesAcross) ? lanesAcross.toLocaleString('en-US') : 'endless'} lanes (${Math.round(acrossFt).toLocaleString('en-US')} ft across the rows); a layout may have at most ${MAX_LANES.toLocaleString('en-US')}. Use wider lanes or split the field.`
+		);
+	}
 	const firstRepeat = Math.floor((metersToFeet(s0) - offsetFt) / repeatFt) - 1;
 	const lastRepeat = Math.ceil((metersToFeet(s1) - offsetFt) / repeatFt) + 1;
 

@@ -3,7 +3,7 @@ import type { MultiPolygon, Polygon, Position } from 'geojson';
 import { findCrossing } from './crossings';
 import { GeometryError } from './errors';
 import { localProjection, type XY } from './projection';
-import { validatePolygonal } from './validate';
+import { checkVertexCount, validatePolygonal } from './validate';
 
 type Polygonal = Polygon | MultiPolygon;
 /** Polygons of rings of planar points (metres), as the clipping code takes them. */
@@ -73,7 +73,8 @@ export function centredProjection(g: Polygonal) {
 
 /**
  * Checks that an outline is a valid GeoJSON polygon whose rings neither cross themselves nor each
- * other, naming where they do.
+ * other, naming where they do. Outlines across the 180th meridian, around a pole or with more than
+ * MAX_FIELD_VERTICES corners are refused.
  *
  * @param g the outline
  * @param what how to name it in messages ("field boundary", "exclusion 2")
@@ -81,7 +82,7 @@ export function centredProjection(g: Polygonal) {
  * @example checkOutline(bowtie, 'field boundary') // throws: crosses itself near longitude …
  */
 export function checkOutline(g: Polygonal, what: string): void {
-	validatePolygonal(g, what);
+	checkVertexCount(validatePolygonal(g, what), what);
 	const proj = centredProjection(g);
 	toPlane(g, proj.forward, proj.inverse, what);
 }

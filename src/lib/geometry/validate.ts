@@ -2,7 +2,8 @@ import type { MultiPolygon, Polygon, Position } from 'geojson';
 import { GeometryError } from './errors';
 import type { LaneSpec, LayoutInput } from './types';
 
-export const MAX_VERTICES = 100_000;
+/** Corners of one field, boundary and exclusions together: the checks stay well under a second. */
+export const MAX_FIELD_VERTICES = 50_000;
 export const MAX_FIELD_ACRES = 20_000;
 const LANE_KINDS = new Set(['crop', 'pasture', 'cover', 'buffer']);
 
@@ -44,7 +45,48 @@ function checkRing(ring: unknown, what: string): number {
 	if (first[0] !== last[0] || first[1] !== last[1]) {
 		throw new GeometryError('open-ring', `The ${what} is not closed: its last point must repeat the first (longitude ${fmt(first[0])}, latitude ${fmt(first[1])}).`, [first[0], first[1]]);
 	}
+	checkSphereSide(pts, what);
 	return pts.length;
+}
+
+/**
+ * Refuses rings the local plane cannot hold. Longitude steps are taken the short way round: a
+ * ring whose steps add up to a full turn goes around a pole; otherwise a step of more than 180°
+ * as written crosses the 180th meridian (RFC 7946 §3.1.9 has such shapes cut there).
+ */
+function checkSphereSide(pts: Position[], what: string): void {
+	let turn = 0;
+	let dateLine: [number, number] | undefined;
+	for (let i = 1; i < pts.length; i++) {
+		const [lng0, lat0] = pts[i - 1];
+		const [lng1, lat1] = pts[i];
+		if (Math.abs(lat1) === 90) {
+			throw new GeometryError('encloses-pole', `The ${what} has a corner on the ${lat1 > 0 ? 'North' : 'South'} Pole; a field outline cannot reach a pole.`, [lng1, lat1]);
+		}
+		const step = lng1 - lng0;
+		if (Math.abs(step) <= 180) {
+			turn += step;
+			continue;
+		}
+		turn += step > 0 ? step - 360 : step + 360;
+		if (!dateLine) {
+			// Where the short way round meets ±180°.
+			const edge = lng0 > 0 ? 180 : -180;
+			const t = (edge - lng0) / (lng1 + 2 * edge - lng0);
+			dateLine = [edge, lat0 + t * (lat1 - lat0)];
+		}
+	}
+	if (Math.abs(turn) > 180) {
+		const north = pts.reduce((s, p) => s + p[1], 0) > 0;
+		throw new GeometryError('encloses-pole', `The ${what} goes all the way around the ${north ? 'North' : 'South'} Pole; a field outline must not enclose a pole.`);
+	}
+	if (dateLine) {
+		throw new GeometryError(
+			'crosses-antimeridian',
+			`The ${what} crosses the 180th meridian (the date line) near latitude ${dateLine[1].toFixed(4)}; a field must lie on one side of it. Split it there into two fields.`,
+			dateLine
+		);
+	}
 }
 
 /**
@@ -69,6 +111,32 @@ export function validatePolygonal(g: unknown, what: string): number {
 		for (const ring of rings) count += checkRing(ring, what);
 	}
 	return count;
+}
+
+/** Positions in a polygonal geometry, tolerating any shape (0 for what is not one). */
+export function countPositions(g: unknown): number {
+	const coordinates = (g as { type?: unknown; coordinates?: unknown } | null)?.coordinates;
+	if (!Array.isArray(coordinates)) return 0;
+	const polygons = (g as { type: unknown }).type === 'MultiPolygon' ? coordinates : [coordinates];
+	let count = 0;
+	for (const rings of polygons) if (Array.isArray(rings)) for (const ring of rings) if (Array.isArray(ring)) count += ring.length;
+	return count;
+}
+
+/**
+ * Refuses more than MAX_FIELD_VERTICES corners for one field.
+ *
+ * @param count positions counted (closing positions included)
+ * @param what how to name the outlines in the message
+ * @example checkVertexCount(60_000, 'field boundary') // throws too-many-vertices
+ */
+export function checkVertexCount(count: number, what: string): void {
+	if (count > MAX_FIELD_VERTICES) {
+		throw new GeometryError(
+			'too-many-vertices',
+			`The ${what} has ${count.toLocaleString('en-US')} points; a field may have at most ${MAX_FIELD_VERTICES.toLocaleString('en-US')}. Simplify the outline (most GIS programs can thin points to a tolerance of about 0.1 m) and try again.`
+		);
+	}
 }
 
 function checkFiniteOptional(value: unknown, name: string): void {
@@ -134,9 +202,7 @@ export function validateLayoutInput(input: LayoutInput): number {
 	(input.exclusions ?? []).forEach((ex, i) => {
 		vertices += validatePolygonal(ex, `exclusion ${i + 1}`);
 	});
-	if (vertices > MAX_VERTICES) {
-		throw new GeometryError('too-many-vertices', `The outlines have ${vertices.toLocaleString('en-US')} points; simplify them to at most ${MAX_VERTICES.toLocaleString('en-US')}.`);
-	}
+	checkVertexCount(vertices, 'field boundary and its exclusions');
 	const g = input.guidance;
 	if (!g || typeof g !== 'object') throw new GeometryError('invalid-geometry', 'The A-B line is missing.');
 	checkPosition(g.a, 'A-B line (point A)');
