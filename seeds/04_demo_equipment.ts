@@ -7,6 +7,7 @@ import { DEMO_FARM_ID, DEMO_PEOPLE } from './01_demo_people';
 const id = (n: number) => `5a1e0000-0000-4000-8000-0000000e${String(n).padStart(4, '0')}`;
 export const DEMO_PLANTER_ID = id(1);
 
+// The density is the farm's own entry from its supplier's label (invented, like all demo data).
 const nitrogen = { id: 'n', name: 'Nitrogen (UAN 32 %)', product: 'UAN 32 %', forCrops: ['corn'], gallonsPerAcre: 15, poundsPerGallon: 11.06, percentN: 32 };
 const starter = { id: 'starter', name: 'Starter 10-34-0', product: 'starter 10-34-0', forCrops: ['corn', 'soybean'], gallonsPerAcre: 5, poundsPerGallon: 11.65, percentN: 10 };
 

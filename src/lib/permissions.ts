@@ -21,7 +21,7 @@ export const ROLE_SUMMARIES: Record<Role, string> = {
 
 export type Capability = 'manageFarm' | 'editPlans' | 'logRecords' | 'scout' | 'read';
 
-/** Which roles hold each capability (DESIGN.md "People and roles"). */
+/** Which roles hold each capability: the product's roles table (owner, manager, crew, advisor, viewer). */
 export const CAPABILITY_ROLES: Record<Capability, readonly Role[]> = {
 	manageFarm: ['owner'],
 	editPlans: ['owner', 'manager'],

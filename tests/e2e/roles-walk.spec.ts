@@ -1,7 +1,7 @@
 import { expect, test } from '@playwright/test';
 import { DEMO_FARM_ID, apiSignIn } from './helpers';
 
-// Every protected page, for every role: the status each must answer (DESIGN.md roles).
+// Every protected page, for every role: the status each must answer (the product's roles table).
 const PAGES: { path: string; allowed: string[] }[] = [
 	{ path: `/farms/${DEMO_FARM_ID}`, allowed: ['owner', 'manager', 'crew', 'advisor', 'viewer'] },
 	{ path: `/farms/${DEMO_FARM_ID}/team`, allowed: ['owner', 'manager', 'crew', 'advisor', 'viewer'] },

@@ -4,7 +4,7 @@ import { createFarm, deleteFarm } from '$lib/server/farms';
 import { ROLES, type Capability } from '$lib/permissions';
 import { fakeEvent, makeFarmWithTeam, makeUser, thrown } from './helpers';
 
-// DESIGN.md "People and roles", written out again so the database path is checked too.
+// The product's roles table, written out again by hand so the database path is checked too.
 const ALLOWED: Record<Capability, string[]> = {
 	manageFarm: ['owner'],
 	editPlans: ['owner', 'manager'],

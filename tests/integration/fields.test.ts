@@ -36,7 +36,7 @@ describe('fields', () => {
 		// A quarter-quarter section is 40 acres nominal: 1,320 ft square (43 U.S.C. §751).
 		const boundary = square(42, -93.6, 1320);
 		const field = await createField(access, { name: 'South forty', boundary, exclusions: [], farmNumber: '12', tractNumber: '34', fieldNumber: '5', landlord: null, notes: null });
-		// REFERENCES §1: a 1,320 ft square from 42°N 93.6°W holds 40.0000 ac. This one closes its
+		// Arithmetic: a 1,320 ft square holds 40 ac of 43,560 sq ft. This one closes its
 		// north side between two meridian walks, so it is square only to ~0.003 %.
 		expect(field.acres).toBeCloseTo(40.0, 2);
 		expect(Math.abs(field.acres - geographicLibAcres(boundary)) / geographicLibAcres(boundary)).toBeLessThan(1e-4);

@@ -60,7 +60,7 @@ describe('GeoJSON', () => {
 		expect(names(r)).toEqual(['North Forty', 'Ridge Eighty']);
 		expect(r.shapes.features.map((f) => f.properties.sourceIndex)).toEqual([0, 1]);
 		expect(r.warnings).toEqual(['Skipped 1 point: only polygons can be field boundaries.']);
-		// REFERENCES §1 [K]: a 1,320 ft square built with geodesic Direct from 42°N 93.6°W is 40.0000 ac.
+		// Arithmetic: 1,320 ft × 1,320 ft = 40 ac of 43,560 sq ft; built with geodesic Direct from 42°N 93.6°W.
 		expect(r.shapes.features[0].properties.acres).toBe(40);
 		// GeographicLib polygon area (Karney 2013) of the same corners, rounded like the output.
 		expect(r.shapes.features[1].properties.acres).toBe(Math.round(data.geographicLibAcres([data.RIDGE_EIGHTY]) * 100) / 100);
@@ -169,7 +169,7 @@ describe('zipped shapefiles', () => {
 		const [home, wet] = r.shapes.features;
 		// Stored clockwise in the .shp; WGS84 coordinates pass unchanged, turned counter-clockwise.
 		expect(home.geometry.coordinates).toEqual([data.HOME_SQUARE]);
-		// REFERENCES §1 [K]: 1,320 ft geodesic square, 40.0000 ac (here from 42°N 93.56°W).
+		// Arithmetic: a 1,320 ft geodesic square is 40 ac of 43,560 sq ft (here from 42°N 93.56°W).
 		expect(home.properties.acres).toBe(40);
 		// GeographicLib area (Karney 2013): outer ring minus the wet spot.
 		expect(wet.properties.acres).toBe(Math.round(data.geographicLibAcres([data.WET_CORNER_FIELD, data.WET_SPOT]) * 100) / 100);

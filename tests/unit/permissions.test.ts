@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { can, ROLES, type Capability, type Role } from '$lib/permissions';
 
-// The matrix exactly as DESIGN.md "People and roles" states it, written out by hand so a change
+// The roles table exactly as the product states it, written out by hand so a change
 // to the code that drifts from the design fails here.
 const MATRIX: Record<Capability, Record<Role, boolean>> = {
 	manageFarm: { owner: true, manager: false, crew: false, advisor: false, viewer: false },

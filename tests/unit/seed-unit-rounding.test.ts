@@ -24,7 +24,7 @@ function wholeUnitsEverywhere(exactUnits: number) {
 
 describe('whole seed units', () => {
 	it('34.00004 units are 34 whole units in every place', () => {
-		// [K] arithmetic: a shortfall of 0.00004 unit is 3.2 kernels of an 80,000-kernel unit
+		// Arithmetic: a shortfall of 0.00004 unit is 3.2 kernels of an 80,000-kernel unit
 		// (80,000 a unit is common practice), far below one kernel's worth of acreage noise.
 		const got = wholeUnitsEverywhere(34.00004);
 		expect(got.equipmentExact).toBeCloseTo(34.00004, 9);
@@ -38,7 +38,7 @@ describe('whole seed units', () => {
 
 	it('an exact 34 stays 34, and floating-point dust does not buy a unit', () => {
 		expect(wholeUnitsEverywhere(34)).toMatchObject({ agronomy: 34, equipment: 34, sheet: 34 });
-		// [K] 8.8 × 100,000 ÷ 80,000 = 11, which binary floating point gives as 11.000000000000002.
+		// Arithmetic: 8.8 × 100,000 ÷ 80,000 = 11, which binary floating point gives as 11.000000000000002.
 		expect(wholeUnitsToBuy((8.8 * 100_000) / 80_000)).toBe(11);
 		expect(wholeUnitsToBuy(0)).toBe(0);
 	});

@@ -59,9 +59,9 @@ describe('seeding sheet', () => {
 		expect(nitrogen[0].unit).toBe(9);
 		expect(nitrogen[0].message).toMatch(/^Passes \d+(, \d+)*: Nitrogen \(UAN 32 %\) is on at row unit 9 over lanes? [\d, ]+.*soybean.*meant for corn/);
 		expect(sheet.checks.indexOf(nitrogen[0])).toBeLessThan(sheet.checks.findIndex((c) => c.severity === 'warn'));
-		// A 15-ft drill in a 10-ft pasture lane overhangs 30 in each side (REFERENCES §10 example).
-		expect(sheet.checks.some((c) => c.severity === 'warn' && /15-ft drill/.test(c.message) && /30 in/.test(c.message))).toBe(true);
-		expect(sheet.hazards.some((h) => /pasture lanes 2, 4, 6/.test(h))).toBe(true);
+		// Arithmetic: a 15-ft drill centred in a 10-ft pasture lane overhangs (15 − 10) ÷ 2 ft = 30 in each side.
+		expect(sheet.checks.some((c) => c.severity === 'warn' && /\b15-ft drill\b/.test(c.message) && /\b30 in\b/.test(c.message))).toBe(true);
+		expect(sheet.hazards.some((h) => /\bpasture lanes 2, 4, 6\b/.test(h))).toBe(true);
 		expect(sheet.cautions[0]).toMatch(/^The label is the law/);
 	});
 
@@ -69,8 +69,9 @@ describe('seeding sheet', () => {
 		const sheet = buildSheet(source());
 		const n = sheet.quantities.find((q) => /UAN 32/.test(q.label));
 		expect(n).toBeDefined();
-		// REFERENCES §3 [K]: lb N/ac = gal/ac × lb/gal × %N/100 → 15 × 11.06 × 0.32 = 53.09.
-		expect(`${n!.amount} ${n!.detail}`).toMatch(/53\.09 lb N\/ac/);
+		// lb N/ac = gal/ac × lb/gal × %N ÷ 100 (J. Camberato, "Calculating nitrogen rates from liquid fertilizer
+		// products", Purdue University Extension, 2023) → 15 × 11.06 (the farm's entered density) × 0.32 = 53.09.
+		expect(`${n!.amount} ${n!.detail}`).toMatch(/\b53\.09 lb N\/ac\b/);
 	});
 
 	it('without a planter still lists lanes, widths, crops and acres, and says so', () => {

@@ -66,13 +66,13 @@ export function poundsNitrogenTotal(acres: number, gallonsPerAcre: number, pound
 }
 
 export interface NitrogenProductPreset {
-	readonly id: 'anhydrous-82' | 'uan-28' | 'uan-32';
+	readonly id: 'anhydrous-82' | 'uan-28';
 	readonly name: string;
 	readonly percentN: number;
 	/** Product density at the stated basis; a default the user must be able to override. */
 	readonly poundsPerGallon: number;
-	/** 'published' where a source is named; 'from memory' where none has been checked. */
-	readonly basis: 'published' | 'from memory';
+	/** Every preset density comes from a named published source. */
+	readonly basis: 'published';
 	readonly source: string;
 }
 
@@ -80,7 +80,11 @@ export interface NitrogenProductPreset {
 export const NITROGEN_DENSITY_CAUTION =
 	'Density changes with temperature and supplier. The product label or SDS governs; enter its lb/gal where it differs.';
 
-/** Default liquid nitrogen products. Densities are starting values only (see {@link NITROGEN_DENSITY_CAUTION}). */
+/**
+ * Default liquid nitrogen products. Densities are starting values only (see {@link NITROGEN_DENSITY_CAUTION}).
+ * UAN 32 % has no preset: no published density for it has been checked, so the farm enters the
+ * lb/gal from its product label or SDS, and pounds of N are left out until it does.
+ */
 export const NITROGEN_PRODUCTS: readonly NitrogenProductPreset[] = Object.freeze([
 	Object.freeze({
 		id: 'anhydrous-82',
@@ -97,13 +101,5 @@ export const NITROGEN_PRODUCTS: readonly NitrogenProductPreset[] = Object.freeze
 		poundsPerGallon: 10.6,
 		basis: 'published',
 		source: 'J. Camberato, Purdue Extension (2023): 10.6 lb/gal, 2.97 lb N/gal'
-	}),
-	Object.freeze({
-		id: 'uan-32',
-		name: 'UAN 32 %',
-		percentN: 32,
-		poundsPerGallon: 11.06,
-		basis: 'from memory',
-		source: 'From memory, not checked against a published source: about 11.06 lb/gal, 3.54 lb N/gal'
 	})
 ]);

@@ -26,7 +26,7 @@ export interface FertilizerAnalysis {
 /** The rate the farmer entered for one fertilizer line. */
 export interface LineRate {
 	gallonsPerAcre: number;
-	/** A preset id ('uan-32' …) or an analysis; default: the preset named like the line's product. */
+	/** A preset id ('uan-28' …) or an analysis; default: the preset named like the line's product. */
 	product?: NitrogenProductPreset['id'] | FertilizerAnalysis;
 }
 
@@ -69,7 +69,7 @@ export interface FertilizerQuantity {
 	gallons: number;
 	percentN: number | null;
 	poundsPerGallon: number | null;
-	densityBasis: 'published' | 'from memory' | 'entered' | null;
+	densityBasis: 'published' | 'entered' | null;
 	poundsNPerAcre: number | null;
 	poundsN: number | null;
 }
@@ -105,7 +105,7 @@ function byCropOption<T>(record: Partial<Record<string, T>> | undefined, crop: s
  * Needs no planter, so the plan page and a sheet without a planter use it too. Lanes without a
  * population are left out and noted.
  *
- * Source: seed units = acres × seeds/ac ÷ seeds per unit [REFERENCES §2, K]; corn 80,000 and
+ * Source: seed units = acres × seeds/ac ÷ seeds per unit (arithmetic); corn 80,000 and
  * soybean 140,000 seeds per unit are common practice (override per crop).
  * @example seedQuantities(lanes, assignments).varieties[0].unitsExact // 34 for 80 ac at 34,000
  */
@@ -171,7 +171,7 @@ export function seedQuantities(
  * (lb/gal × %N); totals per field. Arithmetic only, through the agronomy helpers: rates are the
  * farmer's, never a recommendation.
  *
- * Sources: seed units = acres × seeds/ac ÷ seeds per unit [REFERENCES §2, K]; seeds per unit
+ * Sources: seed units = acres × seeds/ac ÷ seeds per unit (arithmetic); seeds per unit
  * corn 80,000 / soybean 140,000 are common practice (override per crop); lb N/ac = gal/ac ×
  * lb/gal × %N ÷ 100 (J. Camberato, Purdue Extension 2023).
  *
@@ -180,8 +180,8 @@ export function seedQuantities(
  *
  * @throws EquipmentError('invalid-lane') for an assigned lane without acres; 'invalid-rate' for a bad rate
  * @example
- * seedAndFertilizerQuantities(lanes, assignments, planter, { rates: { n: { gallonsPerAcre: 15, product: 'uan-32' } } })
- *   .fertilizer[0].poundsNPerAcre // 53.09
+ * seedAndFertilizerQuantities(lanes, assignments, planter, { rates: { n: { gallonsPerAcre: 20, product: 'uan-28' } } })
+ *   .fertilizer[0].poundsNPerAcre // 59.36
  */
 export function seedAndFertilizerQuantities(
 	lanes: readonly (LaneInput | PlanLane)[],
@@ -232,7 +232,7 @@ export function seedAndFertilizerQuantities(
 			};
 			if (product.basis !== 'entered') presetDensityUsed = true;
 		} else {
-			notes.push(`${line.name}: no analysis for ${line.product ?? 'its product'}; enter %N and lb/gal to get pounds of N.`);
+			notes.push(`${line.name}: no analysis for ${line.product ?? 'its product'}; enter its %N and lb/gal from the product label or SDS to get pounds of N.`);
 		}
 		fertilizer.push({ lineId: line.id, lineName: line.name, product: product?.name ?? line.product, gallonsPerAcre: rate.gallonsPerAcre, acres, laneIndexes, gallons, ...nitrogen });
 	}
@@ -267,7 +267,7 @@ export function seedAndFertilizerQuantities(
 	};
 }
 
-function resolveProduct(rate: LineRate, lineProduct: string | null): { name: string; percentN: number; poundsPerGallon: number; basis: 'published' | 'from memory' | 'entered' } | null {
+function resolveProduct(rate: LineRate, lineProduct: string | null): { name: string; percentN: number; poundsPerGallon: number; basis: 'published' | 'entered' } | null {
 	if (typeof rate.gallonsPerAcre !== 'number' || !Number.isFinite(rate.gallonsPerAcre) || rate.gallonsPerAcre < 0) {
 		throw new EquipmentError('invalid-rate', `The rate must be zero or more gallons per acre, got ${String(rate.gallonsPerAcre)}.`);
 	}

@@ -22,7 +22,8 @@ export interface EquipmentFit {
  * - Otherwise: ⌈lane ÷ implement⌉ passes kept inside the lane (the last one overlaps the previous
  *   pass rather than the neighbour); the last pass covers the remainder ÷ implement (40-ft lane,
  *   15-ft drill: 3 passes, 10/15 = 0.667). It fits only when the passes divide the lane evenly.
- * Rows per strip and whole-multiple widths follow NRCS practice standard 332 (REFERENCES §10).
+ * Whole-multiple widths follow USDA NRCS Conservation Practice Standard 332, Contour Buffer Strips
+ * (national standard, 2014): cropped strips a multiple of the full equipment width.
  *
  * @param laneWidthFt lane width, feet (> 0)
  * @param implementWidthFt implement working width, feet (> 0)

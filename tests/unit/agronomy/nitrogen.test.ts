@@ -146,16 +146,13 @@ describe('NITROGEN_PRODUCTS', () => {
 		expect(poundsNitrogenPerGallon(uan28.poundsPerGallon, uan28.percentN)).toBeCloseTo(2.97, 2);
 	});
 
-	it('marks UAN 32 % as from memory', () => {
-		// [M] from memory, not verified: ≈ 11.06 lb/gal → 3.54 lb N/gal
-		const uan32 = byId('uan-32');
-		expect([uan32.percentN, uan32.poundsPerGallon, uan32.basis]).toEqual([32, 11.06, 'from memory']);
-		expect(uan32.source.toLowerCase()).toContain('from memory');
-		expect(poundsNitrogenPerGallon(uan32.poundsPerGallon, uan32.percentN)).toBeCloseTo(3.54, 2);
+	it('holds no UAN 32 % density: with no published figure checked, the farm enters it', () => {
+		expect(NITROGEN_PRODUCTS.find((p) => p.percentN === 32)).toBeUndefined();
+		expect(NITROGEN_PRODUCTS.every((p) => p.basis === 'published')).toBe(true);
 	});
 
-	it('lists exactly these three and cannot be changed', () => {
-		expect(NITROGEN_PRODUCTS.map((p) => p.id)).toEqual(['anhydrous-82', 'uan-28', 'uan-32']);
+	it('lists exactly these two and cannot be changed', () => {
+		expect(NITROGEN_PRODUCTS.map((p) => p.id)).toEqual(['anhydrous-82', 'uan-28']);
 		expect(Object.isFrozen(NITROGEN_PRODUCTS)).toBe(true);
 		expect(NITROGEN_PRODUCTS.every((p) => Object.isFrozen(p))).toBe(true);
 	});

@@ -25,7 +25,7 @@ describe('seed amounts', () => {
 		const q = seedAndFertilizerQuantities(cornField.lanes, cornField.lanes.map((l) => assign(l.index, 'hybrid A', 34_000)), split());
 		expect(q.varieties).toHaveLength(1);
 		const v = q.varieties[0];
-		// REFERENCES §2 [K]: 80 ac × 34,000 ÷ 80,000 = 34.0 units (80,000 kernels a unit is common practice [C]).
+		// Arithmetic: 80 ac × 34,000 ÷ 80,000 = 34.0 units (80,000 kernels a unit is common practice).
 		expect(v.unitsExact).toBeCloseTo(34.0, 4);
 		expect(v.unitsWhole).toBe(34);
 		expect(v.bags).toBe(34);
@@ -50,7 +50,7 @@ describe('seed amounts', () => {
 			['corn', 'hybrid B', 16]
 		]);
 		const acresA = acresOf(lanes, (l) => l.crop === 'corn' && l.index % 4 === 0);
-		expect(q.varieties[0].unitsExact).toBeCloseTo((acresA * 34_000) / 80_000, 9); // [K] REFERENCES §2 formula
+		expect(q.varieties[0].unitsExact).toBeCloseTo((acresA * 34_000) / 80_000, 9); // arithmetic: acres × seeds/ac ÷ seeds per unit
 		// 40 ac × 140,000 ÷ 140,000 = 40.0 units (140,000 a unit: common practice [C]).
 		expect(q.varieties[1].acres).toBeCloseTo(40, 4);
 		expect(q.varieties[1].unitsExact).toBeCloseTo(40.0, 4);
@@ -104,26 +104,44 @@ describe('fertilizer amounts', () => {
 	const lanes = stripField.lanes;
 	const cornAcres = acresOf(lanes, (l) => l.crop === 'corn');
 
-	it('15 gal/ac of UAN 32 % on the corn lanes: 53.09 lb N/ac', () => {
-		const q = seedAndFertilizerQuantities(lanes, [], split(), { rates: { n: { gallonsPerAcre: 15, product: 'uan-32' } } });
+	it('15 gal/ac of UAN 32 % at the entered 11.06 lb/gal on the corn lanes: 53.09 lb N/ac', () => {
+		const uan32 = { name: 'UAN 32 %', percentN: 32, poundsPerGallon: 11.06 };
+		const q = seedAndFertilizerQuantities(lanes, [], split(), { rates: { n: { gallonsPerAcre: 15, product: uan32 } } });
 		const n = q.fertilizer[0];
-		// REFERENCES §3 [K]: 15 gal/ac × 11.06 lb/gal × 32 % = 53.09 lb N/ac (11.06 lb/gal is [M], from memory).
+		// lb N/ac = gal/ac × lb/gal × %N ÷ 100 (J. Camberato, "Calculating nitrogen rates from liquid
+		// fertilizer products", Purdue University Extension, 2023): 15 × 11.06 × 0.32 = 53.09. The
+		// 11.06 lb/gal is the farm's entry in this test, not a published density.
 		expect(n.poundsNPerAcre).toBeCloseTo(53.09, 2);
-		expect(n.densityBasis).toBe('from memory');
+		expect(n.densityBasis).toBe('entered');
 		expect(cornAcres).toBeCloseTo(40, 4);
 		expect(n.acres).toBeCloseTo(cornAcres, 9);
 		expect(n.gallons).toBeCloseTo(600, 3);
 		expect(n.poundsN).toBeCloseTo(53.088 * 40, 2);
 		expect(n.laneIndexes).toEqual(lanes.filter((l) => l.crop === 'corn').map((l) => l.index));
 		expect(q.totals.gallonsByProduct).toEqual({ 'UAN 32 %': n.gallons });
-		expect(q.notes).toEqual(['No rate entered for Starter; it is left out of the fertilizer amounts.', NITROGEN_DENSITY_CAUTION]);
+		expect(q.notes).toEqual(['No rate entered for Starter; it is left out of the fertilizer amounts.']);
 		expect(toSheetQuantities(q)).toEqual([
 			{
 				label: 'UAN 32 % (Nitrogen)',
 				amount: '600.0 gal · 2,123.5 lb N',
-				detail: '15.0 gal/ac (entered) × 40.00 ac where the line is on; 11.06 lb/gal (from memory) × 32 % N = 53.09 lb N/ac.'
+				detail: '15.0 gal/ac (entered) × 40.00 ac where the line is on; 11.06 lb/gal (entered) × 32 % N = 53.09 lb N/ac.'
 			}
 		]);
+	});
+
+	it('UAN 32 % with no density entered: gallons only, and a note asking for the label\'s lb/gal', () => {
+		const q = seedAndFertilizerQuantities(lanes, [], split(), { rates: { n: { gallonsPerAcre: 15 } } });
+		const n = q.fertilizer[0];
+		expect(n.product).toBe('UAN 32 %');
+		expect([n.percentN, n.poundsPerGallon, n.densityBasis, n.poundsNPerAcre, n.poundsN]).toEqual([null, null, null, null, null]);
+		expect(n.gallons).toBeCloseTo(600, 3);
+		expect(q.notes).toContain('Nitrogen: no analysis for UAN 32 %; enter its %N and lb/gal from the product label or SDS to get pounds of N.');
+		expect(toSheetQuantities(q)[0]).toEqual({
+			label: 'UAN 32 % (Nitrogen)',
+			amount: '600.0 gal',
+			detail: '15.0 gal/ac (entered) × 40.00 ac where the line is on; no analysis entered.'
+		});
+		expect(JSON.stringify([toSheetQuantities(q), q.notes])).not.toMatch(/from memory|11\.06/);
 	});
 
 	it('20 gal/ac of UAN 28 %, found by the line\'s product name: 59.4 lb N/ac', () => {
@@ -142,7 +160,7 @@ describe('fertilizer amounts', () => {
 	});
 
 	it('nitrogen plumbed to the soybean units too goes out on all 80 ac', () => {
-		const q = seedAndFertilizerQuantities(lanes, [], split(true), { rates: { n: { gallonsPerAcre: 15, product: 'uan-32' } } });
+		const q = seedAndFertilizerQuantities(lanes, [], split(true), { rates: { n: { gallonsPerAcre: 15, product: 'uan-28' } } });
 		expect(q.fertilizer[0].acres).toBeCloseTo(80, 4);
 		expect(q.fertilizer[0].gallons).toBeCloseTo(1_200, 2);
 	});
@@ -150,7 +168,7 @@ describe('fertilizer amounts', () => {
 	it('given passes, a line\'s acres follow where it is on: back-and-forth puts nitrogen on the soybean lane', () => {
 		const small = rectangleLayout([corn8, soy8], 80).lanes;
 		const plan = planPasses({ lanes: small, pattern: [corn8, soy8], planter: split(), ends: 'alternate' });
-		const q = seedAndFertilizerQuantities(plan.lanes, [], split(), { rates: { n: { gallonsPerAcre: 15, product: 'uan-32' } }, passes: plan.passes });
+		const q = seedAndFertilizerQuantities(plan.lanes, [], split(), { rates: { n: { gallonsPerAcre: 15, product: 'uan-28' } }, passes: plan.passes });
 		expect(q.fertilizer[0].laneIndexes).toEqual([0, 3]);
 		expect(q.fertilizer[0].acres).toBeCloseTo(small[0].acres + small[3].acres, 12);
 	});
@@ -164,7 +182,7 @@ describe('fertilizer amounts', () => {
 
 	it('refuses a negative rate and an unknown preset', () => {
 		expect(() => seedAndFertilizerQuantities(lanes, [], split(), { rates: { n: { gallonsPerAcre: -1 } } })).toThrow(/zero or more gallons per acre/);
-		expect(() => seedAndFertilizerQuantities(lanes, [], split(), { rates: { n: { gallonsPerAcre: 10, product: 'uan-30' as 'uan-32' } } })).toThrow(/no product preset "uan-30"/);
+		expect(() => seedAndFertilizerQuantities(lanes, [], split(), { rates: { n: { gallonsPerAcre: 10, product: 'uan-30' as 'uan-28' } } })).toThrow(/no product preset "uan-30"/);
 	});
 
 	it('never words an amount as a recommendation', () => {

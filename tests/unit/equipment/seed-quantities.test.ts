@@ -6,7 +6,7 @@ const assign = (laneIndex: number, variety: string | null, populationPerAcre: nu
 
 describe('seed needed without a planter', () => {
 	it('80 ac × 34,000 ÷ 80,000 = 34.0 corn units', () => {
-		// REFERENCES §2 [K]; 80,000 kernels per corn unit is common practice.
+		// Arithmetic; 80,000 kernels per corn unit is common practice.
 		const lanes = [0, 1, 2, 3].map((i) => lane(i, 'corn', 20));
 		const { varieties } = seedQuantities(lanes, lanes.map((l) => assign(l.index, 'hybrid A', 34_000)));
 		expect(varieties).toHaveLength(1);

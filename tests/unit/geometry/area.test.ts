@@ -11,7 +11,8 @@ describe('units', () => {
 	it('uses the international foot and the 43,560 sq ft acre', () => {
 		// NIST / NOAA-NGS, 85 FR 62698 (2020): 1 ft = 0.3048 m exactly.
 		expect(METERS_PER_FOOT).toBe(0.3048);
-		// Acre = 43,560 sq ft = 4,046.8564224 m² (REFERENCES §1, computed from the two above).
+		// Acre = 43,560 sq ft = 4,046.8564224 m², computed from the international foot of 0.3048 m
+		// (NIST and NOAA, Federal Register 85 FR 62698, 2020).
 		expect(SQ_METERS_PER_ACRE).toBeCloseTo(43_560 * 0.3048 ** 2, 9);
 		expect(SQ_METERS_PER_ACRE).toBe(4046.8564224);
 	});
@@ -32,7 +33,8 @@ describe('geodesicAcres against published worked values', () => {
 
 	it('a quarter-mile square is 40 acres', () => {
 		// US Public Land Survey: quarter-quarter section 40 ac nominal (43 U.S.C. §751); 1,320 ft square
-		// = 161,874.2546 m² (REFERENCES §1). Built with GeographicLib Direct from 42°N 93.6°W.
+		// = 1,742,400 sq ft = 40 ac (arithmetic). Built with GeographicLib's geodesic Direct from 42°N
+		// 93.6°W (C. F. F. Karney, "Algorithms for geodesics", Journal of Geodesy 87, Springer, 2013).
 		const field = rectangleField([-93.6, 42], 1320, 1320);
 		expect(rel(geodesicAcres(field), 40)).toBeLessThan(1e-4);
 		expect(rel(geodesicAcres(field), geographicLibAcres(field))).toBeLessThan(1e-7);

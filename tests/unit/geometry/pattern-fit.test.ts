@@ -1,9 +1,19 @@
 import { describe, expect, it } from 'vitest';
 import { equipmentFit, GeometryError, laneWidthFt, openMiddleIn, rowPositionsIn } from '../../../src/lib/geometry/index';
 
+/** The error `fn` throws; fails the test when it throws nothing. */
+function thrownBy(fn: () => unknown): unknown {
+	try {
+		fn();
+	} catch (e) {
+		return e;
+	}
+	throw new Error('expected the call to throw, and it returned normally');
+}
+
 describe('lane widths from rows', () => {
 	it('8 rows of 30 in make a 20-ft lane, 4 rows a 10-ft lane', () => {
-		// Common practice; also REFERENCES §10: 20 ft at 30 in → 8 rows, 10 ft → 4.
+		// Arithmetic: rows × spacing, 8 × 30 in = 240 in = 20 ft; 4 × 30 in = 10 ft; 16 × 30 in = 40 ft.
 		expect(laneWidthFt({ kind: 'crop', crop: 'corn', rows: 8, rowSpacingIn: 30 })).toBe(20);
 		expect(laneWidthFt({ kind: 'crop', crop: 'corn', rows: 4, rowSpacingIn: 30 })).toBe(10);
 		expect(laneWidthFt({ kind: 'crop', crop: 'corn', rows: 16, rowSpacingIn: 30 })).toBe(40);
@@ -16,7 +26,7 @@ describe('lane widths from rows', () => {
 	});
 
 	it('72-in twin rows 8 in apart leave 64 in between pairs', () => {
-		// Common practice (REFERENCES §10).
+		// Common practice (no published source): 72-in centres less the 8-in twin gap leave 64 in.
 		expect(openMiddleIn({ kind: 'crop', crop: 'corn', rows: 4, rowSpacingIn: 72, twinSpacingIn: 8 })).toBe(64);
 		expect(openMiddleIn({ kind: 'crop', crop: 'corn', rows: 4, rowSpacingIn: 60 })).toBe(60);
 		expect(openMiddleIn({ kind: 'pasture', crop: 'pasture', widthFt: 30 })).toBeUndefined();
@@ -54,11 +64,9 @@ describe('equipmentFit', () => {
 		for (const [lane, tool] of [[0, 10], [10, -1], [Number.NaN, 10], [10, Infinity]]) {
 			expect(() => equipmentFit(lane, tool)).toThrow(GeometryError);
 		}
-		try {
-			equipmentFit(-5, 10);
-		} catch (e) {
-			expect((e as GeometryError).code).toBe('invalid-number');
-			expect((e as GeometryError).message).toMatch(/lane width is -5 ft/);
-		}
+		const error = thrownBy(() => equipmentFit(-5, 10));
+		expect(error).toBeInstanceOf(GeometryError);
+		expect((error as GeometryError).code).toBe('invalid-number');
+		expect((error as GeometryError).message).toBe('The lane width is -5 ft; it must be more than zero.');
 	});
 });
