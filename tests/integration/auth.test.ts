@@ -1,9 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import { db } from '$lib/server/db';
 import { hashPassword, verifyPassword } from '$lib/server/password';
-import { lucia } from '$lib/server/auth';
+import type { Cookies } from '@sveltejs/kit';
+import { lucia, startSession } from '$lib/server/auth';
 import { sha256Hex } from '$lib/server/tokens';
-import { createUser, DuplicateEmailError, getUserFromEmail } from '$lib/server/users';
+import { changePassword, createUser, DuplicateEmailError, getUserFromEmail } from '$lib/server/users';
 import { makeUser, uniqueEmail } from './helpers';
 
 describe('password hashing', () => {
@@ -76,5 +77,69 @@ describe('session life cycle', () => {
 		expect((await lucia.validateSession(b.id)).session).not.toBeNull();
 		await lucia.invalidateUserSessions(user.id);
 		expect((await lucia.validateSession(b.id)).session).toBeNull();
+	});
+});
+
+/** A cookie jar holding what the browser sent and what the response sets. */
+function cookieJar(sent: Record<string, string> = {}) {
+	const jar = { ...sent };
+	const cookies = { get: (name: string) => jar[name], set: (name: string, value: string) => void (jar[name] = value) } as unknown as Cookies;
+	return { jar, cookies };
+}
+
+describe('session rotation', () => {
+	it('gives a new session id on sign-in and ends the one the browser carried before', async () => {
+		const user = await makeUser('rotate');
+		const before = await lucia.createSession(user.id, {});
+		const { jar, cookies } = cookieJar({ sw_session: before.id });
+		const after = await startSession(cookies, user.id, false);
+		expect(after.id).not.toBe(before.id);
+		expect(jar.sw_session).toBe(after.id);
+		expect((await lucia.validateSession(before.id)).session).toBeNull();
+		expect((await lucia.validateSession(after.id)).session?.userId).toBe(user.id);
+	});
+
+	it('ends another account\'s session left in the browser when someone else signs in', async () => {
+		const first = await makeUser('shared-first');
+		const second = await makeUser('shared-second');
+		const left = await lucia.createSession(first.id, {});
+		const { jar, cookies } = cookieJar({ sw_session: left.id });
+		await startSession(cookies, second.id, false);
+		expect((await lucia.validateSession(left.id)).session).toBeNull();
+		expect((await lucia.validateSession(jar.sw_session)).user?.id).toBe(second.id);
+	});
+
+	it('starts a session when the browser carried an unknown id', async () => {
+		const user = await makeUser('planted');
+		const { jar, cookies } = cookieJar({ sw_session: 'not-a-session-anyone-has' });
+		const s = await startSession(cookies, user.id, false);
+		expect(jar.sw_session).toBe(s.id);
+		expect((await db()('sessions').where({ user_id: user.id })).map((r) => r.id)).toEqual([sha256Hex(s.id)]);
+	});
+});
+
+describe('password change', () => {
+	it('refuses a wrong current password and changes nothing', async () => {
+		const user = await makeUser('change-wrong', 'the old password');
+		const session = await lucia.createSession(user.id, {});
+		expect(await changePassword(user.id, 'not the old password', 'a brand new password')).toBe(false);
+		const row = await getUserFromEmail(user.email);
+		expect(await verifyPassword(row!.passwordHash, 'the old password')).toBe(true);
+		expect((await lucia.validateSession(session.id)).session).not.toBeNull();
+	});
+
+	it('sets the new password and ends every session of that user only', async () => {
+		const user = await makeUser('change-right', 'the old password');
+		const other = await makeUser('bystander');
+		const phone = await lucia.createSession(user.id, {});
+		const laptop = await lucia.createSession(user.id, {});
+		const theirs = await lucia.createSession(other.id, {});
+		expect(await changePassword(user.id, 'the old password', 'a brand new password')).toBe(true);
+		const row = await getUserFromEmail(user.email);
+		expect(await verifyPassword(row!.passwordHash, 'a brand new password')).toBe(true);
+		expect(await verifyPassword(row!.passwordHash, 'the old password')).toBe(false);
+		expect((await lucia.validateSession(phone.id)).session).toBeNull();
+		expect((await lucia.validateSession(laptop.id)).session).toBeNull();
+		expect((await lucia.validateSession(theirs.id)).session?.userId).toBe(other.id);
 	});
 });

@@ -30,6 +30,10 @@ export const resetPasswordSchema = z
 	.object({ password: newPassword, confirm: z.string() })
 	.refine((v) => v.password === v.confirm, { message: 'The two passwords do not match.', path: ['confirm'] });
 
+export const changePasswordSchema = z
+	.object({ current: z.string().min(1, 'Enter your current password.').max(256, 'That password is too long.'), password: newPassword, confirm: z.string() })
+	.refine((v) => v.password === v.confirm, { message: 'The two passwords do not match.', path: ['confirm'] });
+
 export const farmNameSchema = z.object({
 	name: z.string().trim().min(1, 'Give the farm a name.').max(120, 'Use at most 120 characters.')
 });

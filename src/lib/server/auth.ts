@@ -34,7 +34,13 @@ export function clearSessionCookie(cookies: Cookies, secure: boolean) {
 	cookies.set(c.name, c.value, { ...c.attributes, path: '/', secure });
 }
 
+/**
+ * Starts a fresh session for the user. Whatever session id the browser already carried (another
+ * account's, or one planted before sign-in) is ended first, so a new sign-in never reuses an id.
+ */
 export async function startSession(cookies: Cookies, userId: string, secure: boolean) {
+	const previous = cookies.get(lucia.sessionCookieName);
+	if (previous) await lucia.invalidateSession(previous);
 	const session = await lucia.createSession(userId, {});
 	setSessionCookie(cookies, session, secure);
 	return session;

@@ -1,5 +1,5 @@
 import { db } from './db';
-import { hashPassword } from './password';
+import { hashPassword, verifyPassword } from './password';
 import type { SessionUser } from './auth';
 
 export interface UserWithHash extends SessionUser {
@@ -43,4 +43,19 @@ export async function setUserPassword(userId: string, password: string, trx = db
 	await trx('users')
 		.where({ id: userId })
 		.update({ password_hash: await hashPassword(password), updated_at: trx.fn.now() });
+}
+
+/**
+ * Changes the password when the current one is right, and ends every session of the user in the
+ * same transaction (the caller starts a fresh one for this browser). False when the current
+ * password is wrong; nothing changes then.
+ */
+export async function changePassword(userId: string, currentPassword: string, newPassword: string): Promise<boolean> {
+	return db().transaction(async (trx) => {
+		const row = await trx('users').where({ id: userId }).forUpdate().first('password_hash');
+		if (!row || !(await verifyPassword(row.password_hash, currentPassword))) return false;
+		await setUserPassword(userId, newPassword, trx);
+		await trx('sessions').where({ user_id: userId }).delete();
+		return true;
+	});
 }

@@ -18,7 +18,10 @@ export const actions: Actions = {
 		if (!form.valid) return fail(400, { form: { ...form, data: { ...form.data, password: '' } } });
 		const result = await attemptSignIn(form.data.email, form.data.password, event.getClientAddress());
 		form.data.password = '';
-		if (!result.ok) return message(form, result.message, { status: result.status });
+		if (!result.ok) {
+			if (result.retryAfterSeconds) event.setHeaders({ 'retry-after': String(result.retryAfterSeconds) });
+			return message(form, result.message, { status: result.status });
+		}
 		await startSession(event.cookies, result.user.id, event.url.protocol === 'https:');
 		redirect(303, safeRedirectTarget(event.url.searchParams.get('redirectTo')));
 	}
