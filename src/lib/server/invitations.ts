@@ -2,7 +2,7 @@ import { db } from './db';
 import { generateToken, sha256Hex } from './tokens';
 import { recordAudit } from './audit';
 import { normalizeEmail } from './users';
-import { ROLES, type Role } from '../permissions';
+import { can, ROLE_LABELS, ROLES, type Role } from '../permissions';
 
 export const INVITATION_TTL_DAYS = 7;
 
@@ -26,10 +26,26 @@ export interface InvitationView {
 
 export class InvitationError extends Error {}
 
+/**
+ * Who may invite whom: only members who manage members (owners) invite at all, and an owner role
+ * is only ever handed out by an owner, so no lower role can mint someone above itself.
+ */
+export function mayInvite(inviter: Role, invited: Role): boolean {
+	return can(inviter, 'manageFarm') && (invited !== 'owner' || inviter === 'owner');
+}
+
 /** Creates an invitation and returns the raw token for the link (only its hash is stored). */
 export async function createInvitation(farmId: string, invitedBy: string, email: string, role: Role, now = new Date()) {
 	const token = generateToken();
 	const address = normalizeEmail(email);
+	const inviter = await db()('memberships').where({ farm_id: farmId, user_id: invitedBy }).first('role');
+	if (!inviter || !mayInvite(inviter.role, role)) {
+		throw new InvitationError(
+			role === 'owner'
+				? 'Only an owner of this farm can invite another owner.'
+				: `Your role on this farm (${inviter ? ROLE_LABELS[inviter.role as Role] : 'none'}) cannot invite members; ask an owner.`
+		);
+	}
 	const existingMember = await db()('memberships as m')
 		.join('users as u', 'u.id', 'm.user_id')
 		.where('m.farm_id', farmId)
@@ -109,14 +125,23 @@ export async function getInvitation(token: string, now = new Date()): Promise<In
 	return judge(await findInvitation(db(), token), now);
 }
 
+/** The refusal shown when a link is opened by an account other than the one invited. */
+export function wrongAccountMessage(invitedEmail: string, signedInEmail: string): string {
+	return `This invitation is for ${invitedEmail}, but you are signed in as ${signedInEmail}. Sign out, then sign in or create an account with ${invitedEmail} to accept it.`;
+}
+
 /**
- * Accepts for the signed-in user. The invitation is bound to the farm it was made for; the user
- * keeps a higher role if they already belong to the farm.
+ * Accepts for the signed-in user, whose e-mail must be the invited address (any case): a forwarded
+ * or leaked link does not let another account join. The invitation is bound to the farm it was made
+ * for; the user keeps a higher role if they already belong to the farm.
  */
 export async function acceptInvitation(token: string, userId: string, now = new Date()): Promise<InvitationView> {
 	return db().transaction(async (trx) => {
 		const row = await findInvitation(trx, token).forUpdate('i');
 		const view = judge(row, now);
+		const account = await trx('users').where({ id: userId }).first('email');
+		if (!account) throw new InvitationError('Sign in first to accept this invitation.');
+		if (normalizeEmail(account.email) !== normalizeEmail(view.email)) throw new InvitationError(wrongAccountMessage(view.email, account.email));
 		const existing = await trx('memberships').where({ farm_id: view.farmId, user_id: userId }).forUpdate().first('role');
 		if (!existing) {
 			await trx('memberships').insert({ farm_id: view.farmId, user_id: userId, role: view.role });

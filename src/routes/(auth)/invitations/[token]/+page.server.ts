@@ -1,14 +1,16 @@
 import { fail, redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
-import { acceptInvitation, getInvitation, InvitationError } from '$lib/server/invitations';
+import { acceptInvitation, getInvitation, InvitationError, wrongAccountMessage } from '$lib/server/invitations';
+import { normalizeEmail } from '$lib/server/users';
 import { requireUser } from '$lib/server/access';
 
-export const load: PageServerLoad = async ({ params }) => {
+export const load: PageServerLoad = async ({ params, locals }) => {
 	try {
 		const inv = await getInvitation(params.token);
-		return { invitation: { farmName: inv.farmName, role: inv.role, email: inv.email, invitedByName: inv.invitedByName, expiresAt: inv.expiresAt }, problem: null };
+		const wrongAccount = locals.user && normalizeEmail(locals.user.email) !== normalizeEmail(inv.email) ? wrongAccountMessage(inv.email, locals.user.email) : null;
+		return { invitation: { farmName: inv.farmName, role: inv.role, email: inv.email, invitedByName: inv.invitedByName, expiresAt: inv.expiresAt }, wrongAccount, problem: null };
 	} catch (e) {
-		if (e instanceof InvitationError) return { invitation: null, problem: e.message };
+		if (e instanceof InvitationError) return { invitation: null, wrongAccount: null, problem: e.message };
 		throw e;
 	}
 };
