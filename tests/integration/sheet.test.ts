@@ -69,8 +69,14 @@ describe('seeding sheet from the database', () => {
 		expect(pdf.subarray(0, 5).toString()).toBe('%PDF-');
 		const text = await pdfText(pdf);
 		expect(text.total).toBeGreaterThanOrEqual(1);
-		for (const lane of sheet.lanes) expect(text.text).toContain(`Lane ${lane.index + 1}`);
-		for (const pass of sheet.passes) expect(text.text).toMatch(new RegExp(`Pass ${pass.number}\\b`));
+		// Whole table rows, read line by line: "Lane 1" must be its own row, not a piece of "Lane 10".
+		const lines = text.text.split('\n');
+		const laneRows = lines.filter((l) => /^Lane \d+ /.test(l)).map((l) => l.split(' ').slice(0, 6).join(' '));
+		expect(laneRows).toEqual(sheet.lanes.map((l) => `Lane ${l.index + 1} ${l.kind} ${l.crop} 20 ft`));
+		expect(laneRows).toHaveLength(12);
+		const passRows = lines.filter((l) => /^Pass \d+ from [AB] /.test(l)).map((l) => l.split(' ').slice(0, 4).join(' '));
+		expect(passRows).toEqual(sheet.passes.map((p) => `Pass ${p.number} from ${p.startsAt}`));
+		expect(passRows).toHaveLength(6);
 		expect(text.text).toContain('The label is the law');
 	});
 
@@ -80,7 +86,7 @@ describe('seeding sheet from the database', () => {
 		expect(sheet.equipment).toBeNull();
 		const text = await pdfText(await renderSheetPdf(sheet));
 		expect(text.text).toContain('No planter set up for this farm yet');
-		expect(text.text).toMatch(/20 ft/);
+		expect(text.text).toMatch(/^Lane 1 crop corn 20 ft\b/m);
 	});
 
 	it('e-mails the PDF to the chosen crew through SMTP', async () => {
