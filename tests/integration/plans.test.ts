@@ -89,7 +89,7 @@ describe('plans', () => {
 	it('keeps a past plan on the boundary it was laid out on', async () => {
 		const { access, field, settings } = await setup();
 		const before = await savePlan(access, field.id, 2025, { ...settings, version: 0 });
-		await updateField(access, field.id, { boundary: rectangle(700, 1320) });
+		await updateField(access, field.id, { boundary: rectangle(700, 1320), version: field.version });
 		const past = await getPlan(access, field.id, 2025);
 		expect(past.boundaryVersion).toBe(1);
 		expect(past.plantedAcres).toBeCloseTo(before.plantedAcres, 6);

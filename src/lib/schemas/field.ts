@@ -41,7 +41,7 @@ export const fieldPatchSchema = z.object({
 	boundary: polygonal.optional(),
 	exclusions: z.array(exclusionSchema).max(200, 'At most 200 exclusions per field.').optional(),
 	reason: z.string().trim().max(200).optional(),
-	version: z.number({ message: 'Send the version you edited (a whole number).' }).int().positive().optional()
+	version: z.number({ message: 'Send the version of the field you edited (a whole number), so a newer save is not overwritten.' }).int().positive()
 });
 
 export type FieldCreateInput = z.infer<typeof fieldCreateSchema>;

@@ -1,6 +1,6 @@
 import { db } from './db';
 import { recordAudit } from './audit';
-import type { FarmAccess } from './access';
+import { isUuid, type FarmAccess } from './access';
 import { invalid, notFound, versionConflict } from './errors';
 import type { Equipment } from '../equipment/types';
 import type { EquipmentInput } from '../schemas/equipment';
@@ -56,7 +56,7 @@ export async function listEquipment(access: FarmAccess): Promise<Equipment[]> {
 }
 
 export async function getEquipment(access: FarmAccess, id: string): Promise<Equipment> {
-	const row = /^[0-9a-f-]{36}$/i.test(id) ? await db()('equipment').where({ id, farm_id: access.farm.id }).whereNull('deleted_at').first() : undefined;
+	const row = isUuid(id) ? await db()('equipment').where({ id, farm_id: access.farm.id }).whereNull('deleted_at').first() : undefined;
 	if (!row) throw notFound('implement');
 	return toEquipment(row);
 }
@@ -87,10 +87,15 @@ export async function createEquipment(access: FarmAccess, input: EquipmentInput)
 
 export async function updateEquipment(access: FarmAccess, id: string, input: EquipmentInput): Promise<Equipment> {
 	await getEquipment(access, id);
+	const sent = input.version;
+	if (sent === undefined) {
+		const message = 'Send the version of the implement you edited, so a newer save is not overwritten.';
+		throw invalid(message, { version: [message] });
+	}
 	try {
 		return await db().transaction(async (trx) => {
 			const current = await trx('equipment').where({ id, farm_id: access.farm.id }).forUpdate().first();
-			if (input.version !== undefined && input.version !== current.version) throw versionConflict('implement', current.version, input.version);
+			if (sent !== current.version) throw versionConflict('implement', current.version, sent);
 			if (input.isDefaultPlanter) await trx('equipment').where({ farm_id: access.farm.id }).whereNot({ id }).update({ is_default_planter: false });
 			const [row] = await trx('equipment').where({ id }).update({ ...rowValues(input), version: current.version + 1, updated_at: trx.fn.now() }).returning('*');
 			await recordAudit(trx, { farmId: access.farm.id, userId: access.user.id, entity: 'equipment', entityId: id, action: 'update', before: toEquipment(current), after: toEquipment(row) });

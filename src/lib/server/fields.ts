@@ -166,7 +166,7 @@ export async function updateField(access: FarmAccess, fieldId: string, patch: Fi
 		return await db().transaction(async (trx) => {
 			const current = await trx('fields').where({ id: fieldId, farm_id: access.farm.id }).whereNull('deleted_at').forUpdate().first();
 			if (!current) throw notFound('field');
-			if (patch.version !== undefined && patch.version !== current.version) throw versionConflict('field', current.version, patch.version);
+			if (patch.version !== current.version) throw versionConflict('field', current.version, patch.version);
 			const changes: Record<string, unknown> = { ...details(patch), version: current.version + 1, updated_at: trx.fn.now() };
 			const outlineChanged = patch.boundary !== undefined || patch.exclusions !== undefined;
 			if (outlineChanged) {

@@ -3,7 +3,7 @@ import type { Actions, PageServerLoad } from './$types';
 import { requireMember } from '$lib/server/access';
 import { getField, listFields, updateField } from '$lib/server/fields';
 import { readFieldForm } from '$lib/server/field-form';
-import { AppError } from '$lib/server/errors';
+import { AppError, pageError } from '$lib/server/errors';
 
 export const load: PageServerLoad = async (event) => {
 	const access = await requireMember(event, event.params.farmId, 'editPlans');
@@ -29,9 +29,12 @@ export const load: PageServerLoad = async (event) => {
 export const actions: Actions = {
 	default: async (event) => {
 		const access = await requireMember(event, event.params.farmId, 'editPlans');
+		const current = await getField(access, event.params.fieldId).catch(pageError);
 		const form = await readFieldForm(event.request);
 		if (!form.ok) return fail(400, { values: form.values, errors: form.errors });
-		const current = await getField(access, event.params.fieldId);
+		if (form.version === undefined || !Number.isInteger(form.version)) {
+			return fail(400, { values: form.values, errors: { version: ['The form lost the version of the field it edits. Reload the page and make the change again.'] } });
+		}
 		// Only a changed outline becomes a new boundary version.
 		const outlineChanged = JSON.stringify({ b: form.input.boundary, x: form.input.exclusions }) !== JSON.stringify({ b: current.boundary, x: current.exclusions });
 		try {
@@ -41,9 +44,8 @@ export const actions: Actions = {
 				...(outlineChanged ? { boundary: form.input.boundary, exclusions: form.input.exclusions } : {})
 			});
 		} catch (e) {
-			if (e instanceof AppError && (e.status === 400 || e.status === 409)) {
-				return fail(e.status, { values: form.values, errors: e.fields ?? { boundary: [e.message] } });
-			}
+			if (e instanceof AppError && e.status === 409) return fail(409, { values: form.values, errors: {}, conflict: e.message });
+			if (e instanceof AppError && e.status === 400) return fail(400, { values: form.values, errors: e.fields ?? { boundary: [e.message] } });
 			throw e;
 		}
 		redirect(303, `/farms/${access.farm.id}/fields/${current.id}`);
