@@ -12,13 +12,14 @@ describe('AgronomyError', () => {
 	});
 
 	it('is what the helpers throw, with the argument named', () => {
+		let caught: unknown;
 		try {
 			seedsPerAcre(-30, 6);
-			expect.unreachable('seedsPerAcre(-30, 6) should throw');
 		} catch (error) {
-			expect(error).toBeInstanceOf(AgronomyError);
-			expect((error as AgronomyError).argument).toBe('row width');
+			caught = error;
 		}
+		expect(caught, 'seedsPerAcre(-30, 6) should throw').toBeInstanceOf(AgronomyError);
+		expect((caught as AgronomyError).argument).toBe('row width');
 	});
 
 	it('describes values of the wrong type from untyped callers', () => {
