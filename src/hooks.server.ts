@@ -3,6 +3,7 @@ import { sequence } from '@sveltejs/kit/hooks';
 import { randomUUID } from 'node:crypto';
 import { clearSessionCookie, lucia, setSessionCookie } from '$lib/server/auth';
 import { closeDb } from '$lib/server/db';
+import { applySecurityHeaders } from '$lib/server/security-headers';
 
 // adapter-node emits this after a graceful stop; an idle pool would otherwise keep the process alive.
 process.on('sveltekit:shutdown', () => {
@@ -30,9 +31,7 @@ const handleSession: Handle = async ({ event, resolve }) => {
 
 const handleHeaders: Handle = async ({ event, resolve }) => {
 	const response = await resolve(event);
-	response.headers.set('x-content-type-options', 'nosniff');
-	response.headers.set('referrer-policy', 'same-origin');
-	response.headers.set('x-frame-options', 'DENY');
+	applySecurityHeaders(response.headers, event.url, process.env.TILE_URL);
 	return response;
 };
 
