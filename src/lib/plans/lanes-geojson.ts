@@ -1,7 +1,8 @@
-// Lanes as an RFC 7946 FeatureCollection for guidance displays and other tools. Pure.
+// Lanes as an RFC 7946 FeatureCollection for guidance displays and other tools, outlines to 1 cm. Pure.
 import type { Feature, FeatureCollection, LineString, MultiPolygon, Polygon } from 'geojson';
 import type { Lane, LngLat } from '../geometry/index';
 import type { LaneAssignment } from './types';
+import { roundGeometry } from './coordinates';
 
 interface PlanLike {
 	season: number;
@@ -16,7 +17,7 @@ export function lanesFeatureCollection(fieldName: string, plan: PlanLike): Featu
 	const lanes: Feature<Polygon | MultiPolygon>[] = plan.lanes.map((l) => ({
 		type: 'Feature',
 		id: `lane-${l.index + 1}`,
-		geometry: l.geometry,
+		geometry: roundGeometry(l.geometry),
 		properties: {
 			feature: 'lane',
 			field: fieldName,

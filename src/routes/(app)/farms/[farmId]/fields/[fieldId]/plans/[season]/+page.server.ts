@@ -1,62 +1,83 @@
 import { error, fail, redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
-import { requireMember } from '$lib/server/access';
+import { requireMember, type FarmAccess } from '$lib/server/access';
 import { getBoundaryVersion, getField } from '$lib/server/fields';
-import { adoptVariant, deletePlanVariant, getPlan, listPlans, rotationFromPrevious, savePlan, type Plan } from '$lib/server/plans';
+import { adoptVariant, deletePlanVariant, getPlan, listPlans, rotationFromPrevious, savePlan } from '$lib/server/plans';
 import { AppError } from '$lib/server/errors';
 import { parseSeason } from '$lib/server/season';
 import { planSaveSchema } from '$lib/schemas/plan';
 import { zodFields } from '$lib/server/api';
 import { listEquipment } from '$lib/server/equipment';
 import { loadSheet } from '$lib/server/sheet';
+import { versionedMemo } from '$lib/server/versioned-memo';
+import { lanesForTransport } from '$lib/plans/coordinates';
+import { createHash } from 'node:crypto';
 
 function pageError(e: unknown): never {
 	if (e instanceof AppError) error(e.status, { message: e.message, code: e.code });
 	throw e;
 }
 
+// Rotation and planter checks are geometry work that depends only on saved versions, so each is
+// remembered under the versions it was computed from (see versioned-memo.ts).
+const rotations = versionedMemo<Awaited<ReturnType<typeof rotationFromPrevious>>>();
+const planterChecks = versionedMemo<PlanterChecks | null>();
+type PlanterChecks = { planter: string | null; stops: string[]; warnings: string[] };
+
+const fingerprint = (value: unknown) => createHash('sha1').update(JSON.stringify(value)).digest('base64url');
+
 export const load: PageServerLoad = async (event) => {
 	const access = await requireMember(event, event.params.farmId, 'read');
 	try {
-		const field = await getField(access, event.params.fieldId);
 		const season = parseSeason(event.params.season);
 		const variant = event.url.searchParams.get('variant') ?? undefined;
-		let plan: Plan | null = null;
-		try {
-			plan = await getPlan(access, field.id, season, variant);
-		} catch (e) {
-			if (!(e instanceof AppError && e.status === 404 && !variant)) throw e;
-		}
+		const [field, plan, plans, equipment] = await Promise.all([
+			getField(access, event.params.fieldId),
+			getPlan(access, event.params.fieldId, season, variant).catch((e) => {
+				if (e instanceof AppError && e.status === 404 && !variant) return null;
+				throw e;
+			}),
+			listPlans(access, event.params.fieldId),
+			listEquipment(access)
+		]);
 		const outline = await getBoundaryVersion(access, field.id, plan?.boundaryVersion ?? field.boundaryVersion);
-		const equipment = await listEquipment(access);
-		// The same checks the cab sheet prints, so problems show while planning, not at the planter.
-		let planterChecks: { planter: string | null; stops: string[]; warnings: string[] } | null = null;
-		if (plan) {
-			try {
-				const sheet = await loadSheet(access, field.id, season, { variant });
-				planterChecks = {
-					planter: sheet.equipment?.name ?? null,
-					stops: sheet.checks.filter((c) => c.severity === 'stop').map((c) => c.message),
-					warnings: sheet.checks.filter((c) => c.severity === 'warn').map((c) => c.message)
-				};
-			} catch (e) {
-				if (!(e instanceof AppError)) throw e;
-			}
-		}
+		const previous = plan && plans.find((p) => p.season === plan.season - 1 && p.adopted);
+		const [rotation, checks] = plan
+			? await Promise.all([
+					previous ? rotations.get(`${plan.id}:${plan.version}<${previous.id}:${previous.version}`, () => rotationFromPrevious(access, plan)) : null,
+					// The same checks the cab sheet prints, so problems show while planning, not at the planter.
+					planterChecks.get(`${plan.id}:${plan.version}|${access.farm.units}|${fingerprint(equipment)}`, () => checksFromSheet(access, field.id, season, variant))
+				])
+			: [null, null];
 		return {
 			equipment: equipment.filter((e) => e.kind !== 'planter' && e.kind !== 'sidedress').map((e) => ({ name: e.name, kind: e.kind, workingWidthFt: e.workingWidthFt })),
-			planterChecks,
+			planterChecks: checks,
 			field: { id: field.id, name: field.name, boundaryVersion: field.boundaryVersion, acres: field.acres },
 			season,
-			plan,
-			plans: await listPlans(access, field.id),
+			// The page keeps assignments once (not again on every lane) and outlines to 1 cm.
+			plan: plan && { ...plan, lanes: lanesForTransport(plan.lanes.map(({ assignment: _, ...lane }) => lane)) },
+			plans,
 			outline: { version: outline.version, boundary: outline.boundary, exclusions: outline.exclusions },
-			rotation: plan ? await rotationFromPrevious(access, plan) : null
+			rotation
 		};
 	} catch (e) {
 		pageError(e);
 	}
 };
+
+async function checksFromSheet(access: FarmAccess, fieldId: string, season: number, variant: string | undefined): Promise<PlanterChecks | null> {
+	try {
+		const sheet = await loadSheet(access, fieldId, season, { variant });
+		return {
+			planter: sheet.equipment?.name ?? null,
+			stops: sheet.checks.filter((c) => c.severity === 'stop').map((c) => c.message),
+			warnings: sheet.checks.filter((c) => c.severity === 'warn').map((c) => c.message)
+		};
+	} catch (e) {
+		if (!(e instanceof AppError)) throw e;
+		return null;
+	}
+}
 
 const seasonUrl = (farmId: string, fieldId: string, season: number, variant?: string) =>
 	`/farms/${farmId}/fields/${fieldId}/plans/${season}${variant ? `?variant=${encodeURIComponent(variant)}` : ''}`;

@@ -5,11 +5,14 @@ import { requireMember } from '$lib/server/access';
 import { getPlan, savePlan } from '$lib/server/plans';
 import { planSaveSchema } from '$lib/schemas/plan';
 import { parseSeason } from '$lib/server/season';
+import { planEtag, planResponse } from '$lib/server/plan-response';
 
 export const GET: RequestHandler = api(async (event) => {
 	const access = await requireMember(event, event.params.farmId, 'read');
 	const variant = event.url.searchParams.get('variant') ?? undefined;
-	return json(await getPlan(access, event.params.fieldId, parseSeason(event.params.season), variant));
+	const plan = await getPlan(access, event.params.fieldId, parseSeason(event.params.season), variant);
+	// Every stored digit, as saved: API clients may compare lanes exactly.
+	return planResponse(event.request, planEtag('plan', plan), 'application/json', () => JSON.stringify(plan));
 });
 
 export const PUT: RequestHandler = api(async (event) => {

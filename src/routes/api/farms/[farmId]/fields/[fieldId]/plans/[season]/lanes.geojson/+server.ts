@@ -5,14 +5,17 @@ import { getField } from '$lib/server/fields';
 import { getPlan } from '$lib/server/plans';
 import { parseSeason } from '$lib/server/season';
 import { lanesFeatureCollection } from '$lib/plans/lanes-geojson';
+import { planEtag, planResponse } from '$lib/server/plan-response';
 
 export const GET: RequestHandler = api(async (event) => {
 	const access = await requireMember(event, event.params.farmId, 'read');
-	const field = await getField(access, event.params.fieldId);
-	const plan = await getPlan(access, field.id, parseSeason(event.params.season), event.url.searchParams.get('variant') ?? undefined);
-	const body = JSON.stringify(lanesFeatureCollection(field.name, plan));
+	const season = parseSeason(event.params.season);
+	const [field, plan] = await Promise.all([
+		getField(access, event.params.fieldId),
+		getPlan(access, event.params.fieldId, season, event.url.searchParams.get('variant') ?? undefined)
+	]);
 	const filename = `${field.name.replace(/[^A-Za-z0-9]+/g, '-')}-${plan.season}-lanes.geojson`;
-	return new Response(body, {
-		headers: { 'content-type': 'application/geo+json', 'content-disposition': `attachment; filename="${filename}"` }
+	return planResponse(event.request, planEtag('lanes', plan, field.name), 'application/geo+json', () => JSON.stringify(lanesFeatureCollection(field.name, plan)), {
+		'content-disposition': `attachment; filename="${filename}"`
 	});
 });
