@@ -48,3 +48,18 @@ describe('parallel next-season posts', () => {
 		expect(await db()('plans').where({ field_id: field.id, season: 2027 }).count('* as n').first()).toEqual({ n: 1 });
 	}, 20_000);
 });
+
+describe('transactions keep to their own connection', () => {
+	it('a query on the pool from inside a transaction is refused at once, and the transaction rolls back', async () => {
+		const { farm } = await makeFarmWithTeam();
+		const attempt = db().transaction(async (trx) => {
+			await trx('farms').where({ id: farm.id }).update({ name: 'Renamed inside' });
+			await db()('farms').where({ id: farm.id }).first('name');
+		});
+		await expect(attempt).rejects.toThrow('db() was called inside a transaction: run every query of the transaction on its trx, not on a second pool connection.');
+		expect(await db()('farms').where({ id: farm.id }).first('name')).toEqual({ name: farm.name });
+		// The same transaction on its trx alone commits.
+		await db().transaction(async (trx) => trx('farms').where({ id: farm.id }).update({ name: 'Renamed on trx' }));
+		expect(await db()('farms').where({ id: farm.id }).first('name')).toEqual({ name: 'Renamed on trx' });
+	});
+});
