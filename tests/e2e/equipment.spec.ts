@@ -1,5 +1,5 @@
 import { expect, test, type APIRequestContext, type Browser, type Page } from '@playwright/test';
-import { firstLink, signUp, uniqueEmail, waitForMail } from './helpers';
+import { finishSignUp, firstLink, signUp, uniqueEmail, waitForMail } from './helpers';
 
 /** Signs up a new owner with a farm of their own; returns the farm id. */
 async function ownFarm(page: Page, farmName: string): Promise<string> {
@@ -26,6 +26,7 @@ async function joinAs(browser: Browser, request: APIRequestContext, owner: Page,
 	await page.getByLabel('E-mail').fill(email);
 	await page.getByLabel('Password').fill(`${role} password 123`);
 	await page.getByRole('button', { name: 'Create account' }).click();
+	await finishSignUp(page, email);
 	await page.getByRole('button', { name: new RegExp(`Join ${farmName}`) }).click();
 	await expect(page.getByRole('heading', { level: 1, name: farmName })).toBeVisible();
 	return page;

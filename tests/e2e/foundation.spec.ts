@@ -1,5 +1,5 @@
 import { expect, test } from '@playwright/test';
-import { firstLink, recordingContext, signUp, uniqueEmail, waitForMail } from './helpers';
+import { finishSignUp, firstLink, recordingContext, signUp, uniqueEmail, waitForMail } from './helpers';
 
 test('sign up, create a farm, invite a member who accepts in another browser, role limits what they see', async ({ browser, request }) => {
 	const owner = await recordingContext(browser);
@@ -38,6 +38,8 @@ test('sign up, create a farm, invite a member who accepts in another browser, ro
 	await p2.getByLabel('E-mail').fill(crewEmail);
 	await p2.getByLabel('Password').fill('crew password 123');
 	await p2.getByRole('button', { name: 'Create account' }).click();
+	// The confirmation link brings the invitee back to the invitation, signed in.
+	await finishSignUp(p2, crewEmail);
 	await expect(p2).toHaveURL(/\/invitations\//);
 	await p2.getByRole('button', { name: /Join Test Meadow Farm/ }).click();
 	await expect(p2.getByRole('heading', { level: 1, name: 'Test Meadow Farm' })).toBeVisible();

@@ -45,14 +45,34 @@ export async function signIn(page: Page, email: string, password = DEMO_PASSWORD
 	await expect(page).toHaveURL(/\/farms/);
 }
 
+/** Signs up through the form and the confirmation mail; ends signed in, on the page sign-up led to. */
 export async function signUp(page: Page, name: string, email: string, password = 'a good long password') {
 	await page.goto('/sign-up');
 	await page.getByLabel('Your name').fill(name);
 	await page.getByLabel('E-mail').fill(email);
 	await page.getByLabel('Password').fill(password);
 	await page.getByRole('button', { name: 'Create account' }).click();
+	await finishSignUp(page, email);
+}
+
+/** After the sign-up form was sent: opens the confirmation link mailed to the address and creates the account. */
+export async function finishSignUp(page: Page, email: string) {
+	await expect(page.getByText(`Check your inbox at ${email}`)).toBeVisible();
+	const mail = await waitForMail(page.request, email, /^Confirm your e-mail for Stripwright$/);
+	await page.goto(firstLink(mail.text));
+	await page.getByRole('button', { name: 'Create my account' }).click();
 	// The session cookie exists only once the form post has answered with its redirect.
 	await page.waitForURL((url) => !url.pathname.startsWith('/sign-up'));
+}
+
+/** Signs up without a browser: the request context ends holding the new account's session cookie. */
+export async function apiSignUp(request: APIRequestContext, baseURL: string, name: string, email: string, password: string) {
+	const origin = new URL(baseURL).origin;
+	const res = await request.post('/sign-up', { form: { name, email, password }, headers: { origin } });
+	expect(res.status()).toBe(200);
+	const mail = await waitForMail(request, email, /^Confirm your e-mail for Stripwright$/);
+	const confirmed = await request.post(new URL(firstLink(mail.text)).pathname, { form: { confirm: 'yes' }, headers: { origin }, maxRedirects: 0 });
+	expect(confirmed.status()).toBe(303);
 }
 
 /** A context whose every request is recorded, to prove nothing leaves 127.0.0.1. */

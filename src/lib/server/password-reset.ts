@@ -1,6 +1,7 @@
 import { db } from './db';
 import { generateToken, sha256Hex } from './tokens';
-import { setUserPassword } from './users';
+import { getUserFromEmail, setUserPassword } from './users';
+import { sendMail, type OutgoingMail } from './mail';
 
 export const RESET_TTL_MINUTES = 60;
 
@@ -13,6 +14,32 @@ export async function createPasswordReset(userId: string, now = new Date()): Pro
 		expires_at: new Date(now.getTime() + RESET_TTL_MINUTES * 60_000)
 	});
 	return token;
+}
+
+export type SendMail = (mail: OutgoingMail) => Promise<void>;
+
+/** The reset mail for an existing account: one link, valid once, for an hour. */
+export async function mailPasswordReset(user: { id: string; email: string; name: string }, origin: string, send: SendMail = sendMail) {
+	const link = `${origin}/reset-password/${await createPasswordReset(user.id)}`;
+	await send({
+		to: user.email,
+		subject: 'Reset your Stripwright password',
+		text: `Hello ${user.name},\n\nSomeone (hopefully you) asked to reset the password of your Stripwright account.\nOpen this link within ${RESET_TTL_MINUTES} minutes to choose a new password; it works once:\n\n${link}\n\nIf you did not ask, ignore this e-mail: your password stays as it is.\n`
+	});
+}
+
+/**
+ * What "forgot password" does behind its answer: a reset mail when the address has an account,
+ * nothing otherwise. The page runs it in the background, so its answer and timing are the same.
+ */
+export async function requestPasswordReset(email: string, origin: string, send: SendMail = sendMail) {
+	const user = await getUserFromEmail(email);
+	if (user) await mailPasswordReset(user, origin, send);
+}
+
+/** The one answer to a reset request, whether or not the address has an account. */
+export function passwordResetAnswer(email: string): string {
+	return `If an account uses ${email}, a reset link is on its way. It works once, for ${RESET_TTL_MINUTES} minutes.`;
 }
 
 export type ResetCheck = { ok: true; userId: string; email: string } | { ok: false; message: string };

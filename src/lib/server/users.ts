@@ -26,11 +26,15 @@ export async function getUser(id: string): Promise<SessionUser | null> {
 	return row ?? null;
 }
 
+/** Creates an account directly (seeds, tests); people sign up through a confirmed e-mail (sign-up.ts). */
 export async function createUser(input: { email: string; name: string; password: string }): Promise<SessionUser> {
-	const passwordHash = await hashPassword(input.password);
+	return insertUser(db(), { email: input.email, name: input.name, passwordHash: await hashPassword(input.password) });
+}
+
+export async function insertUser(trx: ReturnType<typeof db>, input: { email: string; name: string; passwordHash: string }): Promise<SessionUser> {
 	try {
-		const [row] = await db()('users')
-			.insert({ email: normalizeEmail(input.email), name: input.name.trim(), password_hash: passwordHash })
+		const [row] = await trx('users')
+			.insert({ email: normalizeEmail(input.email), name: input.name.trim(), password_hash: input.passwordHash })
 			.returning(['id', 'email', 'name']);
 		return row;
 	} catch (e) {

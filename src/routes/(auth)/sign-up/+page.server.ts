@@ -1,11 +1,12 @@
 import { fail, redirect } from '@sveltejs/kit';
-import { setError, superValidate } from 'sveltekit-superforms';
+import { message, superValidate } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
 import type { Actions, PageServerLoad } from './$types';
 import { signUpSchema } from '$lib/schemas/account';
-import { createUser, DuplicateEmailError } from '$lib/server/users';
-import { startSession } from '$lib/server/auth';
+import { requestSignUp, signUpAnswer } from '$lib/server/sign-up';
 import { safeRedirectTarget } from '$lib/server/redirects';
+import { appOrigin } from '$lib/server/mail';
+import { runInBackground } from '$lib/server/background';
 
 export const load: PageServerLoad = async ({ locals, url }) => {
 	if (locals.user) redirect(303, safeRedirectTarget(url.searchParams.get('redirectTo')));
@@ -18,13 +19,9 @@ export const actions: Actions = {
 		const password = form.data.password;
 		form.data.password = ''; // never echo a password back
 		if (!form.valid) return fail(400, { form });
-		try {
-			const user = await createUser({ email: form.data.email, name: form.data.name, password });
-			await startSession(event.cookies, user.id, event.url.protocol === 'https:');
-		} catch (e) {
-			if (e instanceof DuplicateEmailError) return setError(form, 'email', e.message);
-			throw e;
-		}
-		redirect(303, safeRedirectTarget(event.url.searchParams.get('redirectTo')));
+		// Whether the address is new or taken shows only in the mail sent to it, never in this answer.
+		const input = { ...form.data, password, redirectTo: event.url.searchParams.get('redirectTo') };
+		runInBackground('sign-up mail', () => requestSignUp(input, appOrigin(event.url.origin)));
+		return message(form, signUpAnswer(form.data.email));
 	}
 };
