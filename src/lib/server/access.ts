@@ -10,6 +10,8 @@ export interface FarmAccess {
 	role: Role;
 	/** Field ids a viewer may read; null = every field of the farm. */
 	fieldScope: string[] | null;
+	/** What this member may see beyond fields: viewers only what the owner chose to show them. */
+	sees: { memberEmails: boolean; equipment: boolean };
 	can: (capability: Capability) => boolean;
 }
 
@@ -45,7 +47,7 @@ export async function requireMember(event: Event, farmId: string | undefined, ca
 		.join('farms as f', 'f.id', 'm.farm_id')
 		.where({ 'm.farm_id': farmId, 'm.user_id': user.id })
 		.whereNull('f.deleted_at')
-		.first('f.id', 'f.name', 'f.units', 'f.time_zone', 'm.role', 'm.field_scope');
+		.first('f.id', 'f.name', 'f.units', 'f.time_zone', 'f.viewers_see_member_emails', 'f.viewers_see_equipment', 'm.role', 'm.field_scope');
 	if (!row) error(404, { message: FARM_NOT_FOUND, code: 'not_found' });
 	const role = row.role as Role;
 	if (!can(role, capability)) {
@@ -59,6 +61,7 @@ export async function requireMember(event: Event, farmId: string | undefined, ca
 		farm: { id: row.id, name: row.name, units: row.units, timeZone: row.time_zone },
 		role,
 		fieldScope: role === 'viewer' ? (row.field_scope ?? []) : null,
+		sees: role === 'viewer' ? { memberEmails: row.viewers_see_member_emails, equipment: row.viewers_see_equipment } : { memberEmails: true, equipment: true },
 		can: (c) => can(role, c)
 	};
 }

@@ -51,12 +51,14 @@ function duplicate(e: unknown, name: string) {
 }
 
 export async function listEquipment(access: FarmAccess): Promise<Equipment[]> {
+	// Viewers see the farm's implements only when the owner chose to show them.
+	if (!access.sees.equipment) return [];
 	const rows = await db()('equipment').where({ farm_id: access.farm.id }).whereNull('deleted_at').orderBy([{ column: 'kind' }, { column: 'name' }]);
 	return rows.map(toEquipment);
 }
 
 export async function getEquipment(access: FarmAccess, id: string): Promise<Equipment> {
-	const row = isUuid(id) ? await db()('equipment').where({ id, farm_id: access.farm.id }).whereNull('deleted_at').first() : undefined;
+	const row = isUuid(id) && access.sees.equipment ? await db()('equipment').where({ id, farm_id: access.farm.id }).whereNull('deleted_at').first() : undefined;
 	if (!row) throw notFound('implement');
 	return toEquipment(row);
 }

@@ -43,3 +43,29 @@ export async function deleteFarm(farmId: string, userId: string) {
 		await recordAudit(trx, { farmId, userId, entity: 'farm', entityId: farmId, action: 'delete' });
 	});
 }
+
+export interface ViewerPrivacy {
+	/** Viewers see members' e-mail addresses on the team page. */
+	memberEmails: boolean;
+	/** Viewers see the farm's implements (equipment pages, planter checks, the sheet's setup). */
+	equipment: boolean;
+}
+
+export async function getViewerPrivacy(farmId: string): Promise<ViewerPrivacy> {
+	const row = await db()('farms').where({ id: farmId }).first('viewers_see_member_emails', 'viewers_see_equipment');
+	return { memberEmails: row.viewers_see_member_emails, equipment: row.viewers_see_equipment };
+}
+
+export async function setViewerPrivacy(farmId: string, userId: string, privacy: ViewerPrivacy) {
+	await db().transaction(async (trx) => {
+		const before = await trx('farms').where({ id: farmId }).forUpdate().first('viewers_see_member_emails', 'viewers_see_equipment');
+		await trx('farms')
+			.where({ id: farmId })
+			.update({ viewers_see_member_emails: privacy.memberEmails, viewers_see_equipment: privacy.equipment, updated_at: trx.fn.now() });
+		await recordAudit(trx, {
+			farmId, userId, entity: 'farm', entityId: farmId, action: 'viewer_privacy',
+			before: { memberEmails: before.viewers_see_member_emails, equipment: before.viewers_see_equipment },
+			after: privacy
+		});
+	});
+}

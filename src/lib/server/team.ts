@@ -1,6 +1,7 @@
 import { db } from './db';
 import { recordAudit } from './audit';
 import type { Role } from '../permissions';
+import type { FarmAccess } from './access';
 
 export interface Member {
 	userId: string;
@@ -20,6 +21,14 @@ export async function listMembers(farmId: string): Promise<Member[]> {
 		.orderByRaw(`array_position(array['owner','manager','crew','advisor','viewer'], m.role), lower(u.name)`)
 		.select('u.id', 'u.name', 'u.email', 'm.role', 'm.field_scope', 'm.created_at');
 	return rows.map((r) => ({ userId: r.id, name: r.name, email: r.email, role: r.role, fieldScope: r.field_scope, since: r.created_at }));
+}
+
+export type VisibleMember = Omit<Member, 'email'> & { email: string | null };
+
+/** The members as this member may see them: a viewer gets no e-mail addresses unless the owner shows them. */
+export async function listMembersFor(access: FarmAccess): Promise<VisibleMember[]> {
+	const members = await listMembers(access.farm.id);
+	return access.sees.memberEmails ? members : members.map((m) => ({ ...m, email: m.userId === access.user.id ? m.email : null }));
 }
 
 // Locks the farm's owner rows so two owners cannot demote each other at the same instant.

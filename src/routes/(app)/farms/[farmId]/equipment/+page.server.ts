@@ -6,6 +6,7 @@ export const load: PageServerLoad = async (event) => {
 	const access = await requireMember(event, event.params.farmId, 'read');
 	return {
 		equipment: await listEquipment(access),
+		hiddenFromViewer: !access.sees.equipment,
 		saved: event.url.searchParams.get('saved'),
 		deleted: event.url.searchParams.get('deleted')
 	};

@@ -4,11 +4,11 @@ import { zod4 } from 'sveltekit-superforms/adapters';
 import type { Actions, PageServerLoad } from './$types';
 import { farmNameSchema } from '$lib/schemas/account';
 import { requireMember } from '$lib/server/access';
-import { deleteFarm, renameFarm } from '$lib/server/farms';
+import { deleteFarm, getViewerPrivacy, renameFarm, setViewerPrivacy } from '$lib/server/farms';
 
 export const load: PageServerLoad = async (event) => {
 	const access = await requireMember(event, event.params.farmId, 'manageFarm');
-	return { form: await superValidate({ name: access.farm.name }, zod4(farmNameSchema)) };
+	return { form: await superValidate({ name: access.farm.name }, zod4(farmNameSchema)), privacy: await getViewerPrivacy(access.farm.id) };
 };
 
 export const actions: Actions = {
@@ -18,6 +18,14 @@ export const actions: Actions = {
 		if (!form.valid) return fail(400, { form });
 		await renameFarm(access.farm.id, access.user.id, form.data.name);
 		return message(form, 'Farm name saved.');
+	},
+	// Unchecked boxes are simply absent from the post: absent means "keep hidden".
+	privacy: async (event) => {
+		const access = await requireMember(event, event.params.farmId, 'manageFarm');
+		const data = await event.request.formData();
+		const privacy = { memberEmails: data.get('viewersSeeMemberEmails') === 'on', equipment: data.get('viewersSeeEquipment') === 'on' };
+		await setViewerPrivacy(access.farm.id, access.user.id, privacy);
+		return { privacyMessage: 'What viewers see is saved.' };
 	},
 	delete: async (event) => {
 		const access = await requireMember(event, event.params.farmId, 'manageFarm');

@@ -5,7 +5,7 @@ import { z } from 'zod';
 import type { Actions, PageServerLoad } from './$types';
 import { inviteSchema, roleChangeSchema } from '$lib/schemas/account';
 import { requireMember } from '$lib/server/access';
-import { changeRole, listMembers, removeMember, setFieldScope, TeamRuleError } from '$lib/server/team';
+import { changeRole, listMembers, listMembersFor, removeMember, setFieldScope, TeamRuleError } from '$lib/server/team';
 import { listFields } from '$lib/server/fields';
 import { createInvitation, InvitationError, INVITATION_TTL_DAYS, listPendingInvitations, revokeInvitation } from '$lib/server/invitations';
 import { appOrigin, sendMail } from '$lib/server/mail';
@@ -15,7 +15,8 @@ export const load: PageServerLoad = async (event) => {
 	const access = await requireMember(event, event.params.farmId, 'read');
 	const owner = access.can('manageFarm');
 	return {
-		members: await listMembers(access.farm.id),
+		members: await listMembersFor(access),
+		showsEmails: access.sees.memberEmails,
 		invitations: owner ? await listPendingInvitations(access.farm.id) : [],
 		fields: owner ? (await listFields(access)).map((f) => ({ id: f.id, name: f.name })) : [],
 		inviteForm: await superValidate(zod4(inviteSchema), { id: 'invite' })
