@@ -1,6 +1,6 @@
 import { expect, test, type APIRequestContext } from '@playwright/test';
 import { readFileSync } from 'node:fs';
-import { DEMO_FARM_ID, DEMO_PASSWORD, demoEmail } from './helpers';
+import { DEMO_FARM_ID, DEMO_PASSWORD, demoEmail, apiSignUp } from './helpers';
 
 const NORTH80 = '5a1e0000-0000-4000-8000-0000000001f1';
 const CREEK = '5a1e0000-0000-4000-8000-0000000001f2';
@@ -76,8 +76,7 @@ test.describe('fields API by role', () => {
 	test('another farm answers 404, never its data', async ({ playwright, baseURL }) => {
 		const stranger = await playwright.request.newContext({ baseURL });
 		const email = `stranger-${Date.now()}@example.test`;
-		await stranger.post('/sign-up', { form: { name: 'Stranger', email, password: 'stranger password' }, headers: { origin: baseURL! } });
-		await stranger.post('/api/session', { data: { email, password: 'stranger password' } });
+		await apiSignUp(stranger, baseURL!, 'Stranger', email, 'stranger password');
 		expect((await stranger.get(fields)).status()).toBe(404);
 		expect((await stranger.get(`${fields}/${NORTH80}`)).status()).toBe(404);
 		expect((await stranger.get(`${fields}/${NORTH80}/plans/2027`)).status()).toBe(404);
