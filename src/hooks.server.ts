@@ -4,6 +4,8 @@ import { randomUUID } from 'node:crypto';
 import { clearSessionCookie, lucia, setSessionCookie } from '$lib/server/auth';
 import { closeDb } from '$lib/server/db';
 import { applySecurityHeaders } from '$lib/server/security-headers';
+import { frameworkRefusal, fromDatabaseInputError } from '$lib/server/errors';
+import { refuseBadRequest } from '$lib/server/request-checks';
 
 // adapter-node emits this after a graceful stop; an idle pool would otherwise keep the process alive.
 process.on('sveltekit:shutdown', () => {
@@ -35,11 +37,17 @@ const handleHeaders: Handle = async ({ event, resolve }) => {
 	return response;
 };
 
-export const handle = sequence(handleSession, handleHeaders);
+// Malformed requests stop here, before any route reads them.
+const handleRequestChecks: Handle = async ({ event, resolve }) => (await refuseBadRequest(event)) ?? resolve(event);
 
+export const handle = sequence(handleSession, handleHeaders, handleRequestChecks);
+
+// Only unexpected errors and the framework's own 4xx arrive here; a library's message is never shown.
 export const handleError: HandleServerError = ({ error, event, status, message }) => {
-	if (status === 404) return { message: 'This page does not exist.', code: 'not_found' };
+	if (status < 500) return frameworkRefusal(status, message, event.request.headers.get('content-type'));
 	const errorId = randomUUID();
 	console.error(`[${errorId}] ${event.request.method} ${event.url.pathname}`, error);
-	return { message: `Something went wrong on our side. Nothing was saved. (error id ${errorId})`, code: 'internal', errorId, ...(status < 500 ? { message } : {}) };
+	const refused = fromDatabaseInputError(error);
+	if (refused) return { message: `${refused.message} Nothing was saved. (error id ${errorId})`, code: refused.code, errorId };
+	return { message: `Something went wrong on our side. Nothing was saved. (error id ${errorId})`, code: 'internal', errorId };
 };

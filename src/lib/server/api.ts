@@ -2,7 +2,8 @@
 import { isHttpError, isRedirect, json, type RequestEvent } from '@sveltejs/kit';
 import { ZodError, type ZodType } from 'zod';
 import { randomUUID } from 'node:crypto';
-import { AppError } from './errors';
+import { AppError, fromDatabaseInputError } from './errors';
+import { findJsonProblem, refuseJsonProblem } from './request-checks';
 import { GeometryError } from '../geometry/index';
 
 export { AppError as ApiError } from './errors';
@@ -29,6 +30,8 @@ export async function readJson<T>(event: RequestEvent, schema: ZodType<T>): Prom
 	} catch {
 		throw new AppError(400, 'The request body is not valid JSON.', 'bad_json');
 	}
+	const problem = findJsonProblem(body);
+	if (problem) throw refuseJsonProblem(problem);
 	const parsed = schema.safeParse(body);
 	if (!parsed.success) {
 		throw new AppError(400, 'Some values are missing or not valid; see fields.', 'invalid', zodFields(parsed.error));
@@ -50,6 +53,12 @@ export function api<E extends RequestEvent>(handler: (event: E) => Response | Pr
 			if (e instanceof GeometryError) return apiError(400, e.code, e.message);
 			if (isRedirect(e)) throw e;
 			if (e instanceof ZodError) return apiError(400, 'invalid', 'Some values are not valid; see fields.', zodFields(e));
+			const refused = fromDatabaseInputError(e);
+			if (refused) {
+				// A value reached the database unchecked: answer 400, but leave a trace to add the check.
+				console.warn(`${event.request.method} ${event.url.pathname}: database refused a value (${(e as { code: string }).code})`);
+				return apiError(refused.status, refused.code, refused.message);
+			}
 			const errorId = randomUUID();
 			console.error(`[${errorId}] ${event.request.method} ${event.url.pathname}`, e);
 			return apiError(500, 'internal', `Something went wrong on our side (error id ${errorId}). Nothing was saved.`);

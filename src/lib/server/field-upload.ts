@@ -1,14 +1,19 @@
-// Reads one uploaded boundary file from a multipart request, enforcing the size limit before
-// the body is buffered where the client told us its length.
+// Reads one uploaded boundary file from a multipart request, enforcing the size limit as the body
+// arrives, whether or not the client told us its length.
 import { AppError } from './errors';
 import { IMPORT_LIMITS, ImportError, parseFieldFile, type ImportResult } from './field-import';
 
+// Room for the multipart framing and the form's other fields around the file itself.
+const FRAMING_BYTES = 64 * 1024;
+
 export async function readUploadedShapes(request: Request): Promise<ImportResult> {
 	const declared = Number(request.headers.get('content-length') ?? 0);
-	if (declared > IMPORT_LIMITS.maxUploadBytes + 64 * 1024) throw tooLarge(declared);
+	if (declared > IMPORT_LIMITS.maxUploadBytes + FRAMING_BYTES) throw tooLarge(declared);
+	// A chunked upload declares no length: count as it arrives and stop at the limit.
+	const body = await readAtMost(request, IMPORT_LIMITS.maxUploadBytes + FRAMING_BYTES);
 	let data: FormData;
 	try {
-		data = await request.formData();
+		data = await new Response(body, { headers: { 'content-type': request.headers.get('content-type') ?? '' } }).formData();
 	} catch {
 		throw new AppError(400, 'Send the file as multipart/form-data in a field named "file".', 'bad_upload');
 	}
@@ -25,8 +30,46 @@ export async function readUploadedShapes(request: Request): Promise<ImportResult
 	}
 }
 
-function tooLarge(bytes: number) {
+/** The whole body, or a 413 as soon as it passes `limit` bytes (the rest is never buffered). */
+async function readAtMost(request: Request, limit: number): Promise<Uint8Array<ArrayBuffer>> {
+	if (!request.body) return new Uint8Array(0);
+	const reader = request.body.getReader();
+	const chunks: Uint8Array[] = [];
+	let size = 0;
+	try {
+		for (;;) {
+			const { done, value } = await reader.read();
+			if (done) break;
+			size += value.byteLength;
+			if (size > limit) {
+				// Stop reading, but do not cancel: cancelling destroys the socket before the 413 goes out.
+				reader.releaseLock();
+				throw tooLarge(size, true);
+			}
+			chunks.push(value);
+		}
+	} catch (e) {
+		if (e instanceof AppError) throw e;
+		// The server's own body limit ends the stream early: that is the same refusal.
+		if (isTooLarge(e)) throw tooLarge(size, true);
+		throw new AppError(400, 'The upload was interrupted before it was complete; send the file again.', 'bad_upload');
+	}
+	const out = new Uint8Array(size);
+	let at = 0;
+	for (const c of chunks) {
+		out.set(c, at);
+		at += c.byteLength;
+	}
+	return out;
+}
+
+function isTooLarge(e: unknown): boolean {
+	const status = (x: unknown) => (x as { status?: unknown } | null)?.status;
+	return status(e) === 413 || status((e as { cause?: unknown } | null)?.cause) === 413;
+}
+
+function tooLarge(bytes: number, atLeast = false) {
 	const mb = (n: number) => (n / 1024 / 1024).toFixed(1);
-	const message = `The file is ${mb(bytes)} MB; uploads are limited to ${mb(IMPORT_LIMITS.maxUploadBytes)} MB.`;
+	const message = `The file is ${atLeast ? 'more than ' : ''}${mb(bytes)} MB; uploads are limited to ${mb(IMPORT_LIMITS.maxUploadBytes)} MB.`;
 	return new AppError(413, message, 'too_large', { file: [message] });
 }

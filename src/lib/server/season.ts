@@ -1,8 +1,12 @@
 import { notFound } from './errors';
 
+/** Whether the text is a crop year this site plans for (four digits, 1900–2200). */
+export function isSeasonText(value: string): boolean {
+	return /^\d{4}$/.test(value) && Number(value) >= 1900 && Number(value) <= 2200;
+}
+
 /** A crop year from the URL; anything else is simply not a plan we have. */
 export function parseSeason(value: string): number {
-	const n = Number(value);
-	if (!/^\d{4}$/.test(value) || n < 1900 || n > 2200) throw notFound(`season "${value}"`);
-	return n;
+	if (!isSeasonText(value)) throw notFound(`season "${value}"`);
+	return Number(value);
 }

@@ -1,9 +1,9 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { db } from '$lib/server/db';
+import { checkHealth } from '$lib/server/health';
 
-// Load balancers and the start script poll this; it touches the database so a dead pool shows.
+// 503 when the database does not answer, so a balancer stops sending users here.
 export const GET: RequestHandler = async () => {
-	await db().raw('select 1');
-	return json({ ok: true });
+	const health = await checkHealth();
+	return json(health, { status: health.ok ? 200 : 503, headers: { 'cache-control': 'no-store' } });
 };

@@ -4,6 +4,7 @@ import { requireMember } from '$lib/server/access';
 import { getBoundaryVersion, getField } from '$lib/server/fields';
 import { getPlan, listPlans } from '$lib/server/plans';
 import { AppError } from '$lib/server/errors';
+import { isSeasonText } from '$lib/server/season';
 import { rotationMatrix } from '$lib/geometry/index';
 import { rotationWarnings } from '$lib/plans/rotation-flags';
 
@@ -14,8 +15,8 @@ export const load: PageServerLoad = async (event) => {
 		const plans = await listPlans(access, field.id);
 		const seasons = [...new Set(plans.map((p) => p.season))].sort((x, y) => x - y);
 		if (seasons.length === 0) error(404, { message: `${field.name} has no plans to compare yet.`, code: 'not_found' });
-		const b = Number(event.url.searchParams.get('b') ?? seasons.at(-1));
-		const a = Number(event.url.searchParams.get('a') ?? seasons.at(-2) ?? b);
+		const b = seasonParam(event.url, 'b') ?? seasons.at(-1)!;
+		const a = seasonParam(event.url, 'a') ?? seasons.at(-2) ?? b;
 		const [pa, pb] = await Promise.all([getPlan(access, field.id, a), getPlan(access, field.id, b)]);
 		const [oa, ob] = await Promise.all([getBoundaryVersion(access, field.id, pa.boundaryVersion), getBoundaryVersion(access, field.id, pb.boundaryVersion)]);
 		const rotation = rotationMatrix(pa.lanes, pb.lanes);
@@ -33,3 +34,13 @@ export const load: PageServerLoad = async (event) => {
 		throw e;
 	}
 };
+
+/** A season from the query (?a=2025), or null when not given; anything but a crop year is a 400. */
+function seasonParam(url: URL, name: 'a' | 'b'): number | null {
+	const raw = url.searchParams.get(name);
+	if (raw === null || raw === '') return null;
+	if (!isSeasonText(raw)) {
+		error(400, { message: `The season to compare (?${name}=) must be a year such as 2025, not "${raw.slice(0, 40)}".`, code: 'invalid' });
+	}
+	return Number(raw);
+}

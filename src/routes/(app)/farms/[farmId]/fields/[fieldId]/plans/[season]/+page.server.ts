@@ -86,6 +86,7 @@ const seasonUrl = (farmId: string, fieldId: string, season: number, variant?: st
 function variantAction(act: typeof adoptVariant | typeof deletePlanVariant) {
 	return async (event: RequestEvent) => {
 		const access = await requireMember(event, event.params.farmId, 'editPlans');
+		await getField(access, event.params.fieldId!).catch(pageError);
 		const variant = String((await event.request.formData()).get('variant') ?? '');
 		const season = parseSeason(event.params.season!);
 		try {
@@ -104,6 +105,7 @@ export const actions: Actions = {
 	// Without JavaScript the editor posts its settings as JSON text; with it, the page uses PUT.
 	save: async (event) => {
 		const access = await requireMember(event, event.params.farmId, 'editPlans');
+		await getField(access, event.params.fieldId).catch(pageError);
 		const data = await event.request.formData();
 		const season = parseSeason(event.params.season);
 		let body: unknown;

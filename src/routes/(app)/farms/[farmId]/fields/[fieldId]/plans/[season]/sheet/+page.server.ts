@@ -1,7 +1,8 @@
 import { error, fail } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
 import { requireMember } from '$lib/server/access';
-import { AppError } from '$lib/server/errors';
+import { AppError, pageError } from '$lib/server/errors';
+import { getField } from '$lib/server/fields';
 import { loadSheet } from '$lib/server/sheet';
 import { listEquipment } from '$lib/server/equipment';
 import { listMembers } from '$lib/server/team';
@@ -27,6 +28,7 @@ export const load: PageServerLoad = async (event) => {
 export const actions: Actions = {
 	email: async (event) => {
 		const access = await requireMember(event, event.params.farmId, 'editPlans');
+		await getField(access, event.params.fieldId).catch(pageError);
 		const data = await event.request.formData();
 		const to = data.getAll('to').map(String);
 		try {
