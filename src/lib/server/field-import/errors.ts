@@ -39,6 +39,10 @@ export class ImportError extends Error {
 
 /** First line of a library's error, trimmed, for "could not be read as …: <reason>". */
 export function shortReason(e: unknown): string {
+	// The engine's own limits ("Maximum call stack size exceeded", "Invalid array length") say nothing about the file.
+	if (e instanceof RangeError) return 'it is nested too deeply or is too large to read';
+	// A library tripping over a missing part ("Cannot read properties of undefined") speaks of its code, not the file.
+	if (e instanceof TypeError) return 'parts of it are missing or not where this kind of file keeps them';
 	const text = e instanceof Error ? e.message : String(e);
 	const line = text.split('\n').find((l) => l.trim() !== '')?.trim() ?? 'unknown error';
 	return line.length > 160 ? `${line.slice(0, 157)}…` : line;
