@@ -29,7 +29,7 @@ export function createBaseMap(L: L, element: HTMLElement, settings: MapSettings)
 }
 
 /** One colour per field, from a fixed set picked for contrast against the grid background. */
-export const FIELD_COLORS = ['#245a1e', '#8a4b08', '#1d4e89', '#7a1f5c', '#4d5d0f', '#7c2d12'];
+export const FIELD_COLORS = ['#1a2634', '#8a4b08', '#1d4e89', '#7a1f5c', '#4d5d0f', '#7c2d12'];
 
 /**
  * Creates the map once Leaflet has loaded and removes it when the component goes away (returns
