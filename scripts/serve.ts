@@ -1,6 +1,7 @@
-// Starts the local stand-ins (unless real services are configured) and the built app, then waits.
-// Ctrl-C (SIGINT) or SIGTERM stops everything this process started.
-import { spawn } from 'node:child_process';
+// Starts the local stand-ins (unless real services are configured) and the built app, then waits,
+// starting the app again if it stops on its own. Ctrl-C (SIGINT) or SIGTERM stops everything this
+// process started.
+import { spawn, type ChildProcess } from 'node:child_process';
 import net from 'node:net';
 import { startMailStandIn } from './stand-ins/smtp.ts';
 import { startTileStandIn } from './stand-ins/tiles.ts';
@@ -51,28 +52,51 @@ if (!process.env.TILE_URL) {
 	env.TILE_ATTRIBUTION ??= 'Local grid (no imagery)';
 }
 
-const app = spawn(process.execPath, ['build/index.js'], { env, stdio: ['ignore', 'inherit', 'inherit'] });
+// The app runs as a child that is started again whenever it stops on its own, so one crash does
+// not take the database and the stand-ins down with it. Waits double from 1 s up to 30 s while it
+// keeps failing, and start again at 1 s once it has stayed up for a minute.
+const RESTART_FIRST_MS = 1000;
+const RESTART_MAX_MS = 30_000;
+const HEALTHY_AFTER_MS = 60_000;
 
+let app: ChildProcess;
+let startedAt = 0;
+let restartDelay = RESTART_FIRST_MS;
+let restartTimer: NodeJS.Timeout | undefined;
 let stopping = false;
+
+function startApp() {
+	restartTimer = undefined;
+	startedAt = Date.now();
+	app = spawn(process.execPath, ['build/index.js'], { env, stdio: ['ignore', 'inherit', 'inherit'] });
+	// Tests and operators find the process to watch (or kill) by this line.
+	console.log(`▸ App started (pid ${app.pid}).`);
+	app.on('exit', (code, signal) => {
+		if (stopping) return;
+		if (Date.now() - startedAt >= HEALTHY_AFTER_MS) restartDelay = RESTART_FIRST_MS;
+		const why = signal ? `killed by ${signal}` : `exit code ${code}`;
+		console.error(`✗ The app stopped (${why}); starting it again in ${restartDelay / 1000} s. PostgreSQL and the stand-ins keep running.`);
+		restartTimer = setTimeout(startApp, restartDelay);
+		restartDelay = Math.min(restartDelay * 2, RESTART_MAX_MS);
+	});
+}
+startApp();
+
 async function stop(code: number) {
 	if (stopping) return;
 	stopping = true;
-	const exited = new Promise<void>((resolve) => (app.exitCode !== null ? resolve() : app.once('exit', () => resolve())));
-	app.kill('SIGTERM');
+	clearTimeout(restartTimer);
+	const running = app.exitCode === null && app.signalCode === null;
+	const exited = new Promise<void>((resolve) => (running ? app.once('exit', () => resolve()) : resolve()));
+	if (running) app.kill('SIGTERM');
 	await Promise.all(closers.map((c) => c().catch(() => {})));
 	// Give the app a moment to finish requests in flight, then make sure it is gone.
 	await Promise.race([exited, new Promise((r) => setTimeout(r, 5000))]);
-	if (app.exitCode === null) app.kill('SIGKILL');
+	if (app.exitCode === null && app.signalCode === null) app.kill('SIGKILL');
 	process.exit(code);
 }
 process.on('SIGINT', () => stop(0));
 process.on('SIGTERM', () => stop(0));
-app.on('exit', (code) => {
-	if (!stopping) {
-		console.error(`✗ The app stopped (exit code ${code}).`);
-		stop(code ?? 1);
-	}
-});
 
 // Wait until the app answers, then say where it is.
 for (let i = 0; i < 100; i++) {
