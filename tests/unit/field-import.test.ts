@@ -4,8 +4,9 @@ import geographiclib from 'geographiclib-geodesic';
 import type { Position } from 'geojson';
 import JSZip from 'jszip';
 import proj4 from 'proj4';
-import { beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { IMPORT_LIMITS, ImportError, parseFieldFile, type ImportResult } from '../../src/lib/server/field-import';
+import { closeGeometryPool } from '../../src/lib/server/geometry-pool';
 import * as data from '../fixtures/import/fixture-data';
 import { toShapefileRings, writeDbf, writeShp } from '../fixtures/import/shapefile-writer';
 
@@ -22,6 +23,8 @@ async function refused(filename: string, bytes: Uint8Array): Promise<ImportError
 	expect(outcome).toBeInstanceOf(ImportError);
 	return outcome as ImportError;
 }
+
+afterAll(closeGeometryPool);
 
 function names(r: ImportResult): string[] {
 	return r.shapes.features.map((f) => f.properties.name);
@@ -480,5 +483,33 @@ describe('only ImportError ever escapes', () => {
 			}),
 			{ numRuns: 200 }
 		);
+	});
+});
+
+describe('outlines the import refuses before any heavy check', () => {
+	it('refuses a shape with more than 50,000 points with 413, naming the shape', async () => {
+		const ring: Position[] = [];
+		for (let i = 0; i < 50_001; i++) ring.push([-93.9 + 0.004 * Math.cos((2 * Math.PI * i) / 50_001), 44.1 + 0.003 * Math.sin((2 * Math.PI * i) / 50_001)]);
+		ring.push(ring[0]);
+		const e = await refused('big.geojson', json({ type: 'Feature', properties: { name: 'Back forty' }, geometry: { type: 'Polygon', coordinates: [ring] } }));
+		expect(e.code).toBe('too_many_vertices');
+		expect(e.status).toBe(413);
+		expect(e.message).toBe('Shape 1 ("Back forty") has 50,002 points; a field may have at most 50,000. Simplify the outline (thin its points to about 0.1 m) and export it again.');
+	});
+
+	it('refuses a shape across the 180th meridian in its own words', async () => {
+		const e = await refused('island.geojson', polygonFile([[179.998, -17.01], [-179.998, -17.01], [-179.998, -17], [179.998, -17], [179.998, -17.01]]));
+		expect(e.code).toBe('crosses_antimeridian');
+		expect(e.status).toBe(400);
+		expect(e.message).toBe('Shape 1 crosses the 180th meridian (the date line) near latitude -17.0100; a field must lie on one side of it. Split it there into two fields.');
+	});
+
+	it('refuses a shape around the South Pole', async () => {
+		const ring: Position[] = [];
+		for (let lng = -180; lng < 180; lng += 45) ring.push([lng, -89.5]);
+		ring.push(ring[0]);
+		const e = await refused('cap.geojson', polygonFile(ring));
+		expect(e.code).toBe('encloses_pole');
+		expect(e.message).toBe('Shape 1 goes all the way around the South Pole; a field outline must not enclose a pole.');
 	});
 });

@@ -19,6 +19,11 @@ const MIN_AB_M = 1;
 const MAX_AB_DISTANCE_M = 5_000;
 /** Lanes one layout may cut; far beyond any field (a 20,000-acre section in 2-ft lanes is ~15,000). */
 export const MAX_LANES = 20_000;
+/**
+ * Each lane is cut from the whole outline, so the work grows as corners × lanes; past this (several
+ * seconds) a layout is refused before it starts. A 2,000-corner traced field in 5,000 lanes is 10⁷.
+ */
+export const MAX_LANE_WORK = 50_000_000;
 
 type Polygonal = Polygon | MultiPolygon;
 
@@ -85,6 +90,17 @@ export function layoutStrips(input: LayoutInput): Layout {
 		}
 	}
 
+	// The field's extent across the rows bounds the planted area's: refuse an impossible pattern
+	// before the costly clipping.
+	const frame = guidanceFrame(a, b);
+	let minS = Infinity, maxS = -Infinity;
+	for (const rings of field) for (const p of rings[0]) {
+		const [s] = frame.toST(p);
+		if (s < minS) minS = s;
+		if (s > maxS) maxS = s;
+	}
+	checkLaneBudget(input, metersToFeet(maxS - minS), cornersOf(field) + exclusionParts.reduce((n, x) => n + cornersOf(x), 0));
+
 	// One polygon was checked for crossings above; several parts may overlap each other and are merged.
 	const fieldClean = field.length > 1 ? unionShapes([field]) : orientShape(field);
 	const excluded = exclusionParts.length > 0 ? intersectShapes(fieldClean, unionShapes(exclusionParts)) : [];
@@ -107,6 +123,28 @@ export function layoutStrips(input: LayoutInput): Layout {
 	return { lanes, fieldAcres, plantedAcres, headlandAcres, excludedAcres, byCrop: summariseByCrop(lanes) };
 }
 
+function cornersOf(shape: PlaneShape): number {
+	return shape.reduce((n, rings) => rings.reduce((m, ring) => m + ring.length, n), 0);
+}
+
+/** Refuses, before any cutting, a layout with too many lanes or too much work (corners × lanes). */
+function checkLaneBudget(input: LayoutInput, acrossFt: number, corners: number): void {
+	const { starts, repeatFt } = patternEdgesFt(input.pattern);
+	const lanesAcross = Math.round((acrossFt / repeatFt) * starts.length);
+	if (!(lanesAcross <= MAX_LANES)) {
+		throw new GeometryError(
+			'too-many-lanes',
+			`This pattern would cut the field into about ${Number.isFinite(lanesAcross) ? lanesAcross.toLocaleString('en-US') : 'endless'} lanes (${Math.round(acrossFt).toLocaleString('en-US')} ft across the rows); a layout may have at most ${MAX_LANES.toLocaleString('en-US')}. Use wider lanes or split the field.`
+		);
+	}
+	if (lanesAcross * corners > MAX_LANE_WORK) {
+		throw new GeometryError(
+			'too-many-lanes',
+			`The field's outline has ${corners.toLocaleString('en-US')} corners and this pattern cuts it into about ${lanesAcross.toLocaleString('en-US')} lanes: too much to lay out at once. Simplify the outline (fewer corners) or use wider lanes.`
+		);
+	}
+}
+
 /**
  * Cuts the planted area into lanes: the area is turned into the A-B frame, where every lane is a
  * band of constant s, and each band is clipped out directly. Neighbouring bands share one list of
@@ -120,14 +158,7 @@ function cutLanes(input: LayoutInput, planted: PlaneShape, a: XY, b: XY, inverse
 	// Only the offset's place within one repeat matters: reducing it keeps the lane counter small
 	// and exact whatever offset is asked for.
 	const offsetFt = (input.offsetFt ?? 0) % repeatFt;
-	const acrossFt = metersToFeet(s1 - s0);
-	const lanesAcross = Math.round((acrossFt / repeatFt) * starts.length);
-	if (!(lanesAcross <= MAX_LANES)) {
-		throw new GeometryError(
-			'too-many-lanes',
-			`This pattern would cut the field into about ${Number.isFinite(lanesAcross) ? lanesAcross.toLocaleString('en-US') : 'endless'} lanes (${Math.round(acrossFt).toLocaleString('en-US')} ft across the rows); a layout may have at most ${MAX_LANES.toLocaleString('en-US')}. Use wider lanes or split the field.`
-		);
-	}
+	checkLaneBudget(input, metersToFeet(s1 - s0), cornersOf(plantedST));
 	const firstRepeat = Math.floor((metersToFeet(s0) - offsetFt) / repeatFt) - 1;
 	const lastRepeat = Math.ceil((metersToFeet(s1) - offsetFt) / repeatFt) + 1;
 

@@ -68,14 +68,19 @@ export async function computeLayout(
 	exclusions: Exclusion[],
 	settings: { guidance: { a: LngLat; b: LngLat }; pattern: LaneSpec[]; offsetFt: number; headlandFt: number }
 ): Promise<Layout> {
+	// Off the request thread, under the pool's time limit: one big field never stalls the others.
+	const { geometryPool } = await import('./geometry-pool');
 	try {
-		return layoutStrips({
-			boundary,
-			exclusions: exclusions.map((x) => x.geometry),
-			guidance: settings.guidance,
-			pattern: settings.pattern,
-			offsetFt: settings.offsetFt,
-			headlandFt: settings.headlandFt
+		return await geometryPool().run({
+			kind: 'layout',
+			input: {
+				boundary,
+				exclusions: exclusions.map((x) => x.geometry),
+				guidance: settings.guidance,
+				pattern: settings.pattern,
+				offsetFt: settings.offsetFt,
+				headlandFt: settings.headlandFt
+			}
 		});
 	} catch (e) {
 		if (e instanceof GeometryError) throw refuseLayoutError(e);

@@ -93,3 +93,33 @@ export async function recordSignInFailure(email: string, ip: string, now = new D
 export async function recordSignInSuccess(email: string) {
 	await db()('sign_in_throttles').where({ scope: 'account', key: normalizeEmail(email) }).delete();
 }
+
+/** Requests a signed-in user may make of each costly endpoint per window. */
+export const REQUEST_LIMITS = {
+	'layout-preview': { perWindow: 60, windowSeconds: 60, what: 'layout previews' }
+} as const;
+
+/**
+ * Counts one request for `key` (a user id) in the bucket's fixed window, atomically in one
+ * upsert, and says whether it is within the limit and, if not, when the window ends.
+ */
+export async function takeRequest(bucket: keyof typeof REQUEST_LIMITS, key: string, now = new Date()): Promise<RateDecision> {
+	const { perWindow, windowSeconds, what } = REQUEST_LIMITS[bucket];
+	const windowStart = new Date(now.getTime() - windowSeconds * 1000);
+	const result = await db().raw(
+		`INSERT INTO request_counts AS r (bucket, key, window_start, count) VALUES (:bucket, :key, :now, 1)
+		 ON CONFLICT (bucket, key) DO UPDATE SET
+		   count = CASE WHEN r.window_start > :windowStart THEN r.count + 1 ELSE 1 END,
+		   window_start = CASE WHEN r.window_start > :windowStart THEN r.window_start ELSE :now END
+		 RETURNING count, window_start`,
+		{ bucket, key, now, windowStart }
+	);
+	const row = result.rows[0] as { count: number; window_start: Date };
+	if (row.count <= perWindow) return { allowed: true, retryAfterSeconds: 0 };
+	const retryAfterSeconds = Math.max(1, Math.ceil((new Date(row.window_start).getTime() + windowSeconds * 1000 - now.getTime()) / 1000));
+	return {
+		allowed: false,
+		retryAfterSeconds,
+		message: `Too many ${what}: at most ${perWindow} a minute. Wait ${retryAfterSeconds} second${retryAfterSeconds === 1 ? '' : 's'} and try again.`
+	};
+}

@@ -130,3 +130,13 @@ describe('outlines the local plane cannot hold', () => {
 		expect(refusal(() => layoutStrips(input)).code).toBe('crosses-antimeridian');
 	});
 });
+
+describe('work bound', () => {
+	it('refuses a many-cornered outline cut into thousands of lanes before cutting any', () => {
+		// 20,000 corners × ~10,500 one-foot lanes once took half a minute.
+		const input: LayoutInput = { ...field(0), boundary: circle(20_000), pattern: [{ kind: 'buffer', crop: 'grass', widthFt: 0.25 }] };
+		const e = refusal(() => layoutStrips(input));
+		expect(e.code).toBe('too-many-lanes');
+		expect(e.message).toMatch(/^The field's outline has 20,\d{3} corners and this pattern cuts it into about 8,\d{3} lanes: too much to lay out at once\./);
+	}, 5_000);
+});

@@ -19,7 +19,10 @@ export type ImportErrorCode =
 	| 'too_few_positions'
 	| 'self_intersection'
 	| 'zero_area'
-	| 'area_too_large';
+	| 'area_too_large'
+	| 'too_many_vertices'
+	| 'crosses_antimeridian'
+	| 'encloses_pole';
 
 /**
  * The only error `parseFieldFile` throws. `code` is stable for programs, `status` is the HTTP

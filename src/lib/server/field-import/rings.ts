@@ -61,7 +61,7 @@ export function checkRings(label: string, rings: Position[][], polygonIndex: num
 		}
 		return distinct;
 	});
-	const crossing = crossingOf(cleaned);
+	const crossing = crossingOf(cleaned, label);
 	if (crossing) {
 		const [lng, lat] = crossing;
 		throw new ImportError(
@@ -74,7 +74,7 @@ export function checkRings(label: string, rings: Position[][], polygonIndex: num
 
 
 /** Where the rings cross (the geometry engine's own check, so imports and layouts agree), or null. */
-function crossingOf(rings: Position[][]): [number, number] | null {
+function crossingOf(rings: Position[][], label: string): [number, number] | null {
 	try {
 		checkOutline({ type: 'Polygon', coordinates: rings }, 'outline');
 		return null;
@@ -82,6 +82,12 @@ function crossingOf(rings: Position[][]): [number, number] | null {
 		if (e instanceof GeometryError && e.code === 'self-intersection' && e.where) return e.where;
 		// A flat outline: the area check that follows says so in the import's own words.
 		if (e instanceof GeometryError && e.code === 'zero-area') return null;
+		if (e instanceof GeometryError && e.code === 'crosses-antimeridian') {
+			throw new ImportError('crosses_antimeridian', `${label} ${e.message.replace(/^The outline /, '')}`);
+		}
+		if (e instanceof GeometryError && e.code === 'encloses-pole') {
+			throw new ImportError('encloses_pole', `${label} ${e.message.replace(/^The outline /, '')}`);
+		}
 		throw e;
 	}
 }

@@ -2,7 +2,7 @@
 // each one is validated, named and measured, and one bad shape refuses the whole upload.
 import type { MultiPolygon, Polygon, Position } from 'geojson';
 import { geodesicAcres } from '../../geometry/index';
-import { MAX_FIELD_ACRES } from '../../geometry/validate';
+import { MAX_FIELD_ACRES, MAX_FIELD_VERTICES } from '../../geometry/validate';
 import { ImportError } from './errors';
 import { checkRings, fmt, rightHanded } from './rings';
 
@@ -177,6 +177,14 @@ export function requireLongitudeLatitude(candidates: Candidate[], fileLabel: str
 }
 
 function checkCandidate(c: Candidate): ImportedShape {
+	const corners = c.polygons.reduce((n, rings) => rings.reduce((m, ring) => m + ring.length, n), 0);
+	if (corners > MAX_FIELD_VERTICES) {
+		throw new ImportError(
+			'too_many_vertices',
+			`${c.label} has ${corners.toLocaleString('en-US')} points; a field may have at most ${MAX_FIELD_VERTICES.toLocaleString('en-US')}. Simplify the outline (thin its points to about 0.1 m) and export it again.`,
+			413
+		);
+	}
 	const polygons = c.polygons.map((rings, pi) => rightHanded(checkRings(c.label, rings, pi, c.polygons.length)));
 	const geometry: Polygon | MultiPolygon =
 		polygons.length === 1 ? { type: 'Polygon', coordinates: polygons[0] } : { type: 'MultiPolygon', coordinates: polygons };
