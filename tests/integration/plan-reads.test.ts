@@ -3,6 +3,7 @@ import type { Polygon } from 'geojson';
 import { createField } from '$lib/server/fields';
 import { getPlan, savePlan } from '$lib/server/plans';
 import { createEquipment } from '$lib/server/equipment';
+import { loadSheet } from '$lib/server/sheet';
 import { requireMember } from '$lib/server/access';
 import { equipmentSchema } from '$lib/schemas/equipment';
 import type { SessionUser } from '$lib/server/auth';
@@ -127,9 +128,14 @@ describe('the plan page', () => {
 		// 2025 becomes all corn: the same 2026 version now follows corn everywhere.
 		await savePlan(access, field.id, 2025, { ...settings, pattern: [corn], offsetFt: 0, version: previous.version });
 		const planter = equipmentSchema.parse({
-			name: 'Eight-row test planter',
+			name: 'Sixteen-row test planter',
 			kind: 'planter',
-			planter: { rowSpacingIn: 30, rowUnits: Array.from({ length: 8 }, (_, i) => ({ unit: i + 1, seed: { crop: 'corn', variety: null }, fertilizerOn: [] })), fertilizerLines: [] }
+			// Nitrogen plumbed to every unit, soybean units 9–16 included: a stop on every pass.
+			planter: {
+				rowSpacingIn: 30,
+				rowUnits: Array.from({ length: 16 }, (_, i) => ({ unit: i + 1, seed: { crop: i < 8 ? 'corn' : 'soybean', variety: null }, fertilizerOn: ['n'] })),
+				fertilizerLines: [{ id: 'n', name: 'Nitrogen', product: 'UAN 32 %', forCrops: ['corn'], gallonsPerAcre: 15, poundsPerGallon: 11.06, percentN: 32 }]
+			}
 		});
 		await createEquipment(access, planter);
 		const second = await planPage(event(members.crew, path, params));
@@ -137,6 +143,16 @@ describe('the plan page', () => {
 		expect(second.plan?.version).toBe(first.plan?.version);
 		expect(acresFrom(second.rotation.rotation, 'corn', 'soybean')).toBeCloseTo((await getPlan(access, field.id, 2026)).byCrop.soybean.acres, 1);
 		expect(acresFrom(second.rotation.rotation, 'soybean', 'corn')).toBe(0);
-		expect(second.planterChecks?.planter).toBe('Eight-row test planter');
+		expect(second.planterChecks?.planter).toBe('Sixteen-row test planter');
+		// The page carries the first five stops and counts; the sheet has the full lists.
+		const sheet = await loadSheet(access, field.id, 2026);
+		const stops = sheet.checks.filter((c) => c.severity === 'stop').map((c) => c.message);
+		expect(stops.length).toBeGreaterThan(0);
+		expect(second.planterChecks).toEqual({
+			planter: 'Sixteen-row test planter',
+			stopCount: stops.length,
+			firstStops: stops.slice(0, 5),
+			warningCount: sheet.checks.filter((c) => c.severity === 'warn').length
+		});
 	});
 });

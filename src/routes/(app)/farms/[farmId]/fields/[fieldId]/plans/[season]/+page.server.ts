@@ -22,7 +22,8 @@ function pageError(e: unknown): never {
 // remembered under the versions it was computed from (see versioned-memo.ts).
 const rotations = versionedMemo<Awaited<ReturnType<typeof rotationFromPrevious>>>();
 const planterChecks = versionedMemo<PlanterChecks | null>();
-type PlanterChecks = { planter: string | null; stops: string[]; warnings: string[] };
+// The page shows the first stops and counts the rest; the sheet lists them all.
+type PlanterChecks = { planter: string | null; stopCount: number; firstStops: string[]; warningCount: number };
 
 const fingerprint = (value: unknown) => createHash('sha1').update(JSON.stringify(value)).digest('base64url');
 
@@ -68,10 +69,12 @@ export const load: PageServerLoad = async (event) => {
 async function checksFromSheet(access: FarmAccess, fieldId: string, season: number, variant: string | undefined): Promise<PlanterChecks | null> {
 	try {
 		const sheet = await loadSheet(access, fieldId, season, { variant });
+		const stops = sheet.checks.filter((c) => c.severity === 'stop').map((c) => c.message);
 		return {
 			planter: sheet.equipment?.name ?? null,
-			stops: sheet.checks.filter((c) => c.severity === 'stop').map((c) => c.message),
-			warnings: sheet.checks.filter((c) => c.severity === 'warn').map((c) => c.message)
+			stopCount: stops.length,
+			firstStops: stops.slice(0, 5),
+			warningCount: sheet.checks.filter((c) => c.severity === 'warn').length
 		};
 	} catch (e) {
 		if (!(e instanceof AppError)) throw e;
