@@ -1,9 +1,9 @@
 // Data a test makes for itself: a new owner with a farm of their own, fields and plans through
 // the JSON API. Tests that write use these, so the demo stays as seeded for tests about the demo.
-import { expect, type APIRequestContext, type Page } from '@playwright/test';
+import { expect, type APIRequestContext, type Browser, type Page } from '@playwright/test';
 import { randomUUID } from 'node:crypto';
 import type { Polygon } from 'geojson';
-import { signUp, uniqueEmail } from './helpers';
+import { finishSignUp, firstLink, signUp, uniqueEmail, waitForMail } from './helpers';
 import { rectangle } from '../fixtures/rectangle';
 
 export const OWN_PASSWORD = 'a good long password';
@@ -55,4 +55,26 @@ export async function ownPlan(
 	const res = await request.put(`/api/farms/${farmId}/fields/${fieldId}/plans/${season}`, { data: { ...plan, version: 0 } });
 	expect(res.status(), await res.text()).toBe(200);
 	return res.json();
+}
+
+/** The owner (signed in on `owner`) invites a new member with `role`, who signs up in a browser of their own and joins. */
+export async function joinOwnFarm(browser: Browser, owner: Page, farm: OwnFarm, role: 'manager' | 'crew' | 'advisor' | 'viewer'): Promise<{ page: Page; email: string }> {
+	const email = uniqueEmail(`member-${role}`);
+	await owner.goto(`/farms/${farm.farmId}/team`);
+	await owner.getByLabel('E-mail').fill(email);
+	await owner.getByLabel('Role', { exact: true }).selectOption(role);
+	await owner.getByRole('button', { name: 'Send invitation' }).click();
+	await expect(owner.getByText(`Invitation sent to ${email}`)).toBeVisible();
+	const mail = await waitForMail(owner.request, email, new RegExp(`invites you to ${farm.farmName}`));
+	const page = await (await browser.newContext()).newPage();
+	await page.goto(firstLink(mail.text));
+	await page.getByRole('link', { name: 'Create an account' }).click();
+	await page.getByLabel('Your name').fill(`Test ${role}`);
+	await page.getByLabel('E-mail').fill(email);
+	await page.getByLabel('Password').fill(OWN_PASSWORD);
+	await page.getByRole('button', { name: 'Create account' }).click();
+	await finishSignUp(page, email);
+	await page.getByRole('button', { name: new RegExp(`Join ${farm.farmName}`) }).click();
+	await expect(page.getByRole('heading', { level: 1, name: farm.farmName })).toBeVisible();
+	return { page, email };
 }

@@ -1,5 +1,7 @@
 import { expect, test } from '@playwright/test';
 import { DEMO_FARM_ID, apiSignIn } from './helpers';
+import { joinOwnFarm, ownFarm, ownField } from './own-farm';
+import { rectangle } from '../fixtures/rectangle';
 
 // Every protected page, for every role: the status each must answer (the product's roles table).
 const PAGES: { path: string; allowed: string[] }[] = [
@@ -43,32 +45,32 @@ test('non-owners cannot post owner actions', async ({ page }) => {
 	expect(body.error.message).toMatch(/is Manager, which cannot manage members/);
 });
 
-test('the owner grants a viewer another field, and the viewer then sees it', async ({ browser }) => {
-	const owner = await browser.newContext();
-	const page = await owner.newPage();
-	await apiSignIn(page.request, 'owner');
-	await page.goto(`/farms/${DEMO_FARM_ID}/team`);
-	const grants = page.getByTestId('grants-viewer@demo.stripwright.test');
-	await expect(grants.getByLabel('Creek Bend')).toBeChecked();
-	await expect(grants.getByLabel('North 80')).not.toBeChecked();
-	await grants.getByLabel('North 80').check();
-	await grants.getByRole('button', { name: /Save what/ }).click();
-	await expect(page.getByRole('status').filter({ hasText: 'now sees 2 fields' })).toBeVisible();
+test('the owner grants a viewer a field, and the viewer then sees it and no other', async ({ browser }) => {
+	// A farm of its own, so the demo viewer's fields stay as seeded for the tests that read them.
+	const page = await (await browser.newContext()).newPage();
+	const farm = await ownFarm(page, 'granter');
+	await ownField(page.request, farm.farmId, 'Upper field', rectangle(600, 600, -94.41, 43.61));
+	const lowerId = await ownField(page.request, farm.farmId, 'Lower field', rectangle(600, 600, -94.41, 43.6));
+	const viewer = await joinOwnFarm(browser, page, farm, 'viewer');
+	await viewer.page.goto(`/farms/${farm.farmId}/fields`);
+	await expect(viewer.page.getByText('Upper field')).toHaveCount(0);
 
-	const viewer = await browser.newContext();
-	const vp = await viewer.newPage();
-	await apiSignIn(vp.request, 'viewer');
-	await vp.goto(`/farms/${DEMO_FARM_ID}/fields`);
-	await expect(vp.getByTestId('fields-table')).toContainText('North 80');
-	await expect(vp.getByTestId('fields-table')).not.toContainText('Shelter Lanes');
-	// Viewers cannot grant themselves more.
-	const res = await vp.request.post(`/farms/${DEMO_FARM_ID}/team?/grantFields`, { form: { userId: '5a1e0000-0000-4000-8000-0000000000a5', fieldId: '5a1e0000-0000-4000-8000-0000000001f3' }, headers: { origin: new URL(vp.url()).origin, accept: 'application/json' } });
-	expect(res.status()).toBe(403);
-	await viewer.close();
-
-	// Back as it was, for the other specs that read the demo viewer's fields.
-	await grants.getByLabel('North 80').uncheck();
+	await page.goto(`/farms/${farm.farmId}/team`);
+	const grants = page.getByTestId(`grants-${viewer.email}`);
+	await expect(grants.getByLabel('Upper field')).not.toBeChecked();
+	await expect(grants.getByLabel('Lower field')).not.toBeChecked();
+	await grants.getByLabel('Upper field').check();
 	await grants.getByRole('button', { name: /Save what/ }).click();
 	await expect(page.getByRole('status').filter({ hasText: 'now sees 1 field' })).toBeVisible();
-	await owner.close();
+
+	await viewer.page.goto(`/farms/${farm.farmId}/fields`);
+	await expect(viewer.page.getByTestId('fields-table')).toContainText('Upper field');
+	await expect(viewer.page.getByTestId('fields-table')).not.toContainText('Lower field');
+	// Viewers cannot grant themselves more.
+	const res = await viewer.page.request.post(`/farms/${farm.farmId}/team?/grantFields`, { form: { userId: '5a1e0000-0000-4000-8000-0000000000a5', fieldId: lowerId }, headers: { origin: new URL(viewer.page.url()).origin, accept: 'application/json' } });
+	expect(res.status()).toBe(403);
+	await viewer.page.goto(`/farms/${farm.farmId}/fields`);
+	await expect(viewer.page.getByTestId('fields-table')).not.toContainText('Lower field');
+	await viewer.page.context().close();
+	await page.context().close();
 });

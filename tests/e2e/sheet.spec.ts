@@ -4,6 +4,9 @@ import { DEMO_FARM_ID, DEMO_PASSWORD, apiSignIn, demoEmail, waitForMail } from '
 const SHELTER = `/farms/${DEMO_FARM_ID}/fields/5a1e0000-0000-4000-8000-0000000001f3`;
 const CREEK = `/farms/${DEMO_FARM_ID}/fields/5a1e0000-0000-4000-8000-0000000001f2`;
 
+// About the demo scenario: its split planter with row unit 9's nitrogen left open, its crew and
+// viewer, read as seeded. No e2e test writes the demo; tests that write make a farm of their own.
+
 test('the plan shows the planter checks; the sheet lists passes, stops on the misplumbed unit and prints cleanly', async ({ page }) => {
 	await apiSignIn(page.request, 'manager');
 	await page.goto(`${SHELTER}/plans/2026`);
