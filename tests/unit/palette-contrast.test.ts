@@ -13,7 +13,7 @@ function contrast(a: string, b: string): number {
 	return (hi + 0.05) / (lo + 0.05);
 }
 
-const colors = config.theme.extend.colors as Record<string, Record<number, string>>;
+const colors = config.theme!.extend!.colors as Record<string, Record<number, string>>;
 const { ink, clay, loam } = colors;
 const white = '#ffffff';
 
