@@ -1,9 +1,12 @@
-// Times layoutStrips against a naive Turf layout on two fields and compares both with GeographicLib.
+// Times layoutStrips against a naive Turf layout on two fields and compares both with GeographicLib,
+// and the self-crossing check against the all-pairs check.
 // Run: npm run bench
 import type { MultiPolygon, Polygon } from 'geojson';
 import { layoutStrips, type LayoutInput } from '../src/lib/geometry/index';
 import { geographicLibSquareMeters, irregularField, rectangleField, squareAround, travel } from './bench/fields';
 import { naiveLayout } from './bench/naive';
+import { findCrossing } from '../src/lib/geometry/crossings';
+import { crossesByAllPairs, spikyRing } from './bench/crossings-pairs';
 
 const SQ_M_PER_ACRE = 4046.8564224;
 const corn = { kind: 'crop' as const, crop: 'corn', rows: 8, rowSpacingIn: 30 };
@@ -28,6 +31,13 @@ function time<T>(runs: number, fn: () => T): { ms: number; result: T } {
 		ms.push(performance.now() - t);
 	}
 	return { ms: median(ms), result };
+}
+
+/** One timed run, no warm-up: for the slow baseline. */
+function once<T>(fn: () => T): { ms: number; result: T } {
+	const t = performance.now();
+	const result = fn();
+	return { ms: performance.now() - t, result };
 }
 
 const sw: [number, number] = [-94.3, 44.05];
@@ -68,3 +78,17 @@ for (const [name, input, runs] of [['640-ac section, 3 exclusions', section, 9],
 	);
 }
 console.log(rows.join('\n\n'));
+
+// Self-crossing check: the sweep line against every pair of edges (the O(n²) definition), on a
+// spiky star whose long edges were the worst case of the grid of buckets it replaced.
+const crossingRows: string[] = ['Self-crossing check on a spiky star (no crossing, so every edge is examined):'];
+for (const corners of [10_000, 20_000, 50_000]) {
+	const ring = spikyRing(corners);
+	const sweep = time(5, () => findCrossing([ring]));
+	const pairs = once(() => crossesByAllPairs([ring]));
+	if (sweep.result !== null || pairs.result) throw new Error('the star must not cross itself');
+	crossingRows.push(
+		`  ${corners.toLocaleString('en-US')} corners: sweep ${sweep.ms.toFixed(1)} ms (median of 5), all pairs ${pairs.ms.toFixed(0)} ms (one run): sweep ${(pairs.ms / sweep.ms).toFixed(0)}× faster`
+	);
+}
+console.log(`\n${crossingRows.join('\n')}`);

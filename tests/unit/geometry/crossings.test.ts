@@ -2,37 +2,14 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { findCrossing } from '../../../src/lib/geometry/crossings';
 import type { XY } from '../../../src/lib/geometry/projection';
-import { spikyRing } from './shapes';
-
 // The definition itself, every pair of edges: the sweep must agree with it on every input.
+import { crossesByAllPairs, spikyRing } from '../../../scripts/bench/crossings-pairs';
+
 function orient(a: XY, b: XY, c: XY): number {
 	return (b[0] - a[0]) * (c[1] - a[1]) - (b[1] - a[1]) * (c[0] - a[0]);
 }
 function within(a: XY, b: XY, p: XY): boolean {
 	return Math.min(a[0], b[0]) <= p[0] && p[0] <= Math.max(a[0], b[0]) && Math.min(a[1], b[1]) <= p[1] && p[1] <= Math.max(a[1], b[1]);
-}
-function meet(p1: XY, p2: XY, q1: XY, q2: XY): boolean {
-	const d1 = orient(q1, q2, p1), d2 = orient(q1, q2, p2), d3 = orient(p1, p2, q1), d4 = orient(p1, p2, q2);
-	if (d1 * d2 < 0 && d3 * d4 < 0) return true;
-	return (d1 === 0 && within(q1, q2, p1)) || (d2 === 0 && within(q1, q2, p2)) || (d3 === 0 && within(p1, p2, q1)) || (d4 === 0 && within(p1, p2, q2));
-}
-function crossesByAllPairs(rings: XY[][]): boolean {
-	const edges = rings.flatMap((ring, r) => ring.slice(0, -1).map((a, i) => ({ a, b: ring[i + 1], r, i, n: ring.length - 1 })));
-	for (let u = 0; u < edges.length; u++) {
-		for (let v = u + 1; v < edges.length; v++) {
-			const s = edges[u], q = edges[v];
-			const next = s.r === q.r && (q.i === s.i + 1 || (s.i === 0 && q.i === s.n - 1));
-			if (!next) {
-				if (meet(s.a, s.b, q.a, q.b)) return true;
-				continue;
-			}
-			// Neighbours share one vertex; folding back over each other is a crossing.
-			const [p0, p1, p2] = q.i === s.i + 1 ? [s.a, s.b, q.b] : [q.a, q.b, s.b];
-			const dot = (p0[0] - p1[0]) * (p2[0] - p1[0]) + (p0[1] - p1[1]) * (p2[1] - p1[1]);
-			if (orient(p0, p1, p2) === 0 && dot > 0) return true;
-		}
-	}
-	return false;
 }
 
 /** Closed ring without consecutive repeats, as findCrossing expects. */
