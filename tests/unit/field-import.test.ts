@@ -219,7 +219,7 @@ describe('zipped shapefiles', () => {
 		});
 
 		it('measures the grid square larger by the scale factor', () => {
-			// [K] A 1,320 ft grid square at the central meridian, where the scale factor is k0 = 0.9996:
+			// Computed: A 1,320 ft grid square at the central meridian, where the scale factor is k0 = 0.9996:
 			// true area = 40 ac / 0.9996² = 40.0320 ac.
 			expect(r.shapes.features[0].properties.acres).toBe(Math.round((40 / 0.9996 ** 2) * 100) / 100);
 			expect(r.shapes.features[0].properties.acres).toBe(40.03);

@@ -48,7 +48,7 @@ export function standardMoistureWeight(wetPounds: number, moisturePct: number, s
  * Percent of weight lost bringing grain from `moisturePct` to `standardMoisturePct`
  * (negative when the grain is drier than standard and so gains weight).
  *
- * Source: Mulvaney & Devkota, UF/IFAS EDIS SS-AGR-443 (2020); 25 % → 15.5 % corn loses 11.24 % [K].
+ * Source: Mulvaney & Devkota, UF/IFAS EDIS SS-AGR-443 (2020); 25 % → 15.5 % corn loses 11.24 % (arithmetic).
  */
 export function moistureShrinkPercent(moisturePct: number, standardMoisturePct: number): number {
 	return 100 - standardMoistureWeight(100, moisturePct, standardMoisturePct);

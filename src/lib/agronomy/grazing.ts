@@ -8,7 +8,7 @@ const SPECIES: readonly GrazingSpecies[] = ['cattle', 'sheep', 'goat', 'hog', 'p
 export const ANIMAL_UNIT_WEIGHT_LB = 1_000;
 /** Forage dry matter one animal unit eats per day, lb (National Drought Mitigation Center). */
 export const ANIMAL_UNIT_DAILY_DRY_MATTER_LB = 26;
-/** Dry matter per animal-unit month: 26 lb × 30 days [K]. */
+/** Dry matter per animal-unit month: 26 lb × 30 days (arithmetic). */
 export const ANIMAL_UNIT_MONTH_DRY_MATTER_LB = 780;
 
 /**
@@ -77,7 +77,7 @@ export function grazingDays(p: {
 /**
  * Stocking density: animal units per acre on the area at one time.
  *
- * Source: definition as in NCAT ATTRA, "Grazier's Math" [K].
+ * Source: definition as in NCAT ATTRA, "Grazier's Math" (arithmetic on its definitions).
  *
  * @example stockingDensity(4.5, 2) // 2.25
  */

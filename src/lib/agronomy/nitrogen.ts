@@ -47,7 +47,7 @@ export function gallonsPerAcreForNitrogen(poundsNitrogenPerAcre: number, poundsP
 /**
  * Gallons of product needed for an area at a rate: acres × gal/ac.
  *
- * Source: arithmetic [K].
+ * Source: arithmetic.
  */
 export function gallonsForArea(acres: number, gallonsPerAcre: number): number {
 	const area = requirePositive('acres', acres, 'ac');
@@ -58,7 +58,7 @@ export function gallonsForArea(acres: number, gallonsPerAcre: number): number {
 /**
  * Total pounds of nitrogen applied to an area: acres × gal/ac × lb/gal × %N ÷ 100.
  *
- * Source: as {@link poundsNitrogenPerAcre}, times the area [K].
+ * Source: as {@link poundsNitrogenPerAcre}, times the area (arithmetic).
  */
 export function poundsNitrogenTotal(acres: number, gallonsPerAcre: number, poundsPerGallon: number, percentN: number): number {
 	const area = requirePositive('acres', acres, 'ac');

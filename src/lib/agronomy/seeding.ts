@@ -86,7 +86,7 @@ export function twinRowSeedSpacingIn(pairCentresIn: number, seedsPerAcre: number
  * Seed units (bags) needed: acres × seeds/ac ÷ seeds per unit. Exact figure, not rounded up;
  * see {@link seedUnitEstimate} for whole units.
  *
- * Source: arithmetic [K] (80 ac × 34,000 ÷ 80,000 = 34.0 units).
+ * Source: arithmetic (80 ac × 34,000 ÷ 80,000 = 34.0 units).
  */
 export function seedUnits(acres: number, seedsPerAcre: number, seedsPerUnit: number): number {
 	const area = requirePositive('acres', acres, 'ac');
@@ -152,7 +152,7 @@ export function wholeUnitsToBuy(exactUnits: number): number {
  * Seed units for an area, exact and rounded up to whole units. Give `seedsPerUnit` to override
  * the crop's preset; give at least one of `crop` and `seedsPerUnit`.
  *
- * Source: arithmetic [K]; presets are common practice (see {@link SEED_UNIT_PRESETS}).
+ * Source: arithmetic; presets are common practice (see {@link SEED_UNIT_PRESETS}).
  *
  * @example seedUnitEstimate({ acres: 80, seedsPerAcre: 34_000, crop: 'corn' }) // exactUnits 34, wholeUnits 34
  */

@@ -4,11 +4,11 @@ import { expectAgronomyError } from './expect-error.js';
 
 describe('creditedRowFraction', () => {
 	it('matches the worked values for wide rows', () => {
-		// [K] from 7 CFR 718.108 (each row credited at most 40 in): 60 in → 0.6667
+		// Computed: from 7 CFR 718.108 (each row credited at most 40 in): 60 in → 0.6667
 		expect(creditedRowFraction(60)).toBeCloseTo(0.6667, 4);
-		// [K] 7 CFR 718.108: 72 in → 0.5556
+		// Computed: 7 CFR 718.108: 72 in → 0.5556
 		expect(creditedRowFraction(72)).toBeCloseTo(0.5556, 4);
-		// [K] 7 CFR 718.108: 90 in → 0.4444
+		// Computed: 7 CFR 718.108: 90 in → 0.4444
 		expect(creditedRowFraction(90)).toBeCloseTo(0.4444, 4);
 	});
 

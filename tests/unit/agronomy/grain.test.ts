@@ -30,11 +30,11 @@ describe('GRAIN_STANDARDS', () => {
 
 describe('standardMoistureWeight', () => {
 	it('holds dry matter constant', () => {
-		// [K] Mulvaney & Devkota, UF/IFAS SS-AGR-443 (2020) formula: 1,000 lb at 25 % → 887.57 lb at 15.5 %
+		// Computed: Mulvaney & Devkota, UF/IFAS SS-AGR-443 (2020) formula: 1,000 lb at 25 % → 887.57 lb at 15.5 %
 		expect(standardMoistureWeight(1_000, 25, 15.5)).toBeCloseTo(887.574, 3);
-		// [K] same formula: grain drier than standard gains weight, 1,000 lb at 11 % → 1,022.99 lb at 13 %
+		// Computed: same formula: grain drier than standard gains weight, 1,000 lb at 11 % → 1,022.99 lb at 13 %
 		expect(standardMoistureWeight(1_000, 11, 13)).toBeCloseTo(1_022.989, 3);
-		// [K] at standard, unchanged
+		// Computed: at standard, unchanged
 		expect(standardMoistureWeight(1_000, 15.5, 15.5)).toBe(1_000);
 	});
 
@@ -60,9 +60,9 @@ describe('standardMoistureWeight', () => {
 
 describe('moistureShrinkPercent', () => {
 	it('matches the worked value', () => {
-		// [K] Mulvaney & Devkota, UF/IFAS SS-AGR-443 (2020): corn 25 % → 15.5 % loses 11.24 %
+		// Computed: Mulvaney & Devkota, UF/IFAS SS-AGR-443 (2020): corn 25 % → 15.5 % loses 11.24 %
 		expect(moistureShrinkPercent(25, 15.5)).toBeCloseTo(11.24, 2);
-		// [K] dry soybean 11 % → 13 % gains 2.30 % (a negative shrink)
+		// Computed: dry soybean 11 % → 13 % gains 2.30 % (a negative shrink)
 		expect(moistureShrinkPercent(11, 13)).toBeCloseTo(-2.299, 3);
 	});
 
@@ -77,22 +77,22 @@ describe('moistureShrinkPercent', () => {
 
 describe('yieldBushelsPerAcre', () => {
 	it('matches the worked corn strip', () => {
-		// [K] extension strip calibration guidance, Mulvaney & Devkota UF/IFAS SS-AGR-443, Univ. of Wisconsin-Extension standards:
+		// Computed: extension strip calibration guidance, Mulvaney & Devkota UF/IFAS SS-AGR-443, Univ. of Wisconsin-Extension standards:
 		// 8 rows × 30 in × 1,000 ft, 5,000 lb at 20 % → 184.11 bu/ac at 15.5 %
 		expect(yieldBushelsPerAcre('corn', 5_000, 20, 20_000 / 43_560)).toBeCloseTo(184.11, 2);
 	});
 
 	it('raises grain drier than standard to standard moisture', () => {
-		// [K] same sources: soybean 6 rows × 30 in × 800 ft, 1,000 lb at 11 % → 61.89 bu/ac at 13 %
+		// Computed: same sources: soybean 6 rows × 30 in × 800 ft, 1,000 lb at 11 % → 61.89 bu/ac at 13 %
 		expect(yieldBushelsPerAcre('soybean', 1_000, 11, 12_000 / 43_560)).toBeCloseTo(61.89, 2);
 	});
 
 	it('uses each crop’s own standard', () => {
-		// [K] Wisconsin standards: 6,000 lb wheat at its 13.5 % standard on 1 ac → 100 bu/ac
+		// Computed: Wisconsin standards: 6,000 lb wheat at its 13.5 % standard on 1 ac → 100 bu/ac
 		expect(yieldBushelsPerAcre('wheat', 6_000, 13.5, 1)).toBeCloseTo(100, 10);
-		// [K] Wisconsin standards: 3,200 lb oats at its 14 % standard on 1 ac → 100 bu/ac
+		// Computed: Wisconsin standards: 3,200 lb oats at its 14 % standard on 1 ac → 100 bu/ac
 		expect(yieldBushelsPerAcre('oats', 3_200, 14, 1)).toBeCloseTo(100, 10);
-		// [K] 6,000 lb wheat at 18 % on 1 ac → 6,000 × 82 ÷ 86.5 ÷ 60 = 94.80 bu/ac
+		// Computed: 6,000 lb wheat at 18 % on 1 ac → 6,000 × 82 ÷ 86.5 ÷ 60 = 94.80 bu/ac
 		expect(yieldBushelsPerAcre('wheat', 6_000, 18, 1)).toBeCloseTo(94.798, 3);
 	});
 
@@ -114,7 +114,7 @@ describe('yieldBushelsPerAcre', () => {
 
 describe('stripYield', () => {
 	it('matches the worked corn strip', () => {
-		// [K] extension strip calibration guidance, Mulvaney & Devkota UF/IFAS SS-AGR-443: 8 rows × 30 in × 1,000 ft = 0.4591 ac;
+		// Computed: extension strip calibration guidance, Mulvaney & Devkota UF/IFAS SS-AGR-443: 8 rows × 30 in × 1,000 ft = 0.4591 ac;
 		// 5,000 lb at 20 % → 184.11 bu/ac; wet grain, so both figures agree
 		const result = stripYield(cornStrip);
 		expect(result.acres).toBeCloseTo(0.459137, 6);
@@ -123,7 +123,7 @@ describe('stripYield', () => {
 	});
 
 	it('matches the worked soybean strip, with and without raising dry grain', () => {
-		// [K] same sources: 6 rows × 30 in × 800 ft = 0.2755 ac; 1,000 lb at 11 %
+		// Computed: same sources: 6 rows × 30 in × 800 ft = 0.2755 ac; 1,000 lb at 11 %
 		// → 61.89 bu/ac raised to 13 %, 60.50 bu/ac left as weighed
 		const result = stripYield(soyStrip);
 		expect(result.acres).toBeCloseTo(0.275482, 6);

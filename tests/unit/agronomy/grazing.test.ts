@@ -17,7 +17,7 @@ describe('animal unit constants', () => {
 		// National Drought Mitigation Center: one animal unit is a 1,000-lb cow with calf eating 26 lb DM a day
 		expect(ANIMAL_UNIT_WEIGHT_LB).toBe(1_000);
 		expect(ANIMAL_UNIT_DAILY_DRY_MATTER_LB).toBe(26);
-		// [K] AUM = 26 lb × 30 days = 780 lb DM
+		// Computed: AUM = 26 lb × 30 days = 780 lb DM
 		expect(ANIMAL_UNIT_MONTH_DRY_MATTER_LB).toBe(ANIMAL_UNIT_DAILY_DRY_MATTER_LB * 30);
 	});
 });
@@ -26,13 +26,13 @@ describe('animalUnits', () => {
 	it('is head × weight ÷ 1,000 lb', () => {
 		// National Drought Mitigation Center: a 1,000-lb cow is one animal unit
 		expect(animalUnits('cattle', 1, 1_000)).toBe(1);
-		// [K] 30 ewes × 150 lb ÷ 1,000 = 4.5 AU
+		// Computed: 30 ewes × 150 lb ÷ 1,000 = 4.5 AU
 		expect(animalUnits('sheep', 30, 150)).toBeCloseTo(4.5, 12);
-		// [K] 12 hogs × 250 lb ÷ 1,000 = 3 AU (a size measure only: hogs are not in forage AU tables)
+		// Computed: 12 hogs × 250 lb ÷ 1,000 = 3 AU (a size measure only: hogs are not in forage AU tables)
 		expect(animalUnits('hog', 12, 250)).toBeCloseTo(3, 12);
-		// [K] 20 goats × 100 lb → 2 AU
+		// Computed: 20 goats × 100 lb → 2 AU
 		expect(animalUnits('goat', 20, 100)).toBeCloseTo(2, 12);
-		// [K] 200 hens × 5 lb → 1 AU
+		// Computed: 200 hens × 5 lb → 1 AU
 		expect(animalUnits('poultry', 200, 5)).toBeCloseTo(1, 12);
 	});
 
@@ -50,9 +50,9 @@ describe('animalUnits', () => {
 
 describe('dailyDryMatterLb', () => {
 	it('matches the worked value', () => {
-		// [K] NCAT ATTRA "Grazier's Math" formula: 30 ewes × 150 lb × 3.5 % = 157.5 lb DM/day
+		// Computed: NCAT ATTRA "Grazier's Math" formula: 30 ewes × 150 lb × 3.5 % = 157.5 lb DM/day
 		expect(dailyDryMatterLb(30, 150, 3.5)).toBeCloseTo(157.5, 10);
-		// [K] same formula, beef at 2.5 % (ATTRA range 2.5–3.0): 10 head × 1,200 lb → 300 lb/day
+		// Computed: same formula, beef at 2.5 % (ATTRA range 2.5–3.0): 10 head × 1,200 lb → 300 lb/day
 		expect(dailyDryMatterLb(10, 1_200, 2.5)).toBeCloseTo(300, 10);
 	});
 
@@ -73,11 +73,11 @@ describe('dailyDryMatterLb', () => {
 
 describe('grazingDays', () => {
 	it('matches the worked value', () => {
-		// [K] NCAT ATTRA "Grazier's Math" formula: 2 ac × 2,400 lb × 50 % ÷ 157.5 lb/day → 15.2 days
+		// Computed: NCAT ATTRA "Grazier's Math" formula: 2 ac × 2,400 lb × 50 % ÷ 157.5 lb/day → 15.2 days
 		expect(grazingDays(ewes)).toBeCloseTo(15.24, 2);
-		// [K] double the head, half the days
+		// Computed: double the head, half the days
 		expect(grazingDays({ ...ewes, head: 60 })).toBeCloseTo(15.238 / 2, 3);
-		// [K] no forage above residual, no grazing
+		// Computed: no forage above residual, no grazing
 		expect(grazingDays({ ...ewes, forageLbPerAcre: 0 })).toBe(0);
 	});
 
@@ -117,7 +117,7 @@ describe('grazingDays', () => {
 
 describe('stockingDensity', () => {
 	it('is animal units per acre', () => {
-		// [K] stocking density = AU per acre at one time (NCAT ATTRA, "Grazier's Math"): 4.5 AU (30 ewes × 150 lb) on 2 ac → 2.25 AU/ac
+		// Computed: stocking density = AU per acre at one time (NCAT ATTRA, "Grazier's Math"): 4.5 AU (30 ewes × 150 lb) on 2 ac → 2.25 AU/ac
 		expect(stockingDensity(animalUnits('sheep', 30, 150), 2)).toBeCloseTo(2.25, 12);
 		expect(stockingDensity(0, 2)).toBe(0);
 	});

@@ -4,7 +4,7 @@ import { expectAgronomyError, frozenCopy } from './expect-error.js';
 
 describe('landEquivalentRatio', () => {
 	it('matches the worked values', () => {
-		// [K] Mead & Willey, Exp. Agric. 16:217–228 (1980): sole corn 200, sole soybean 60; strips on half
+		// Computed: Mead & Willey, Exp. Agric. 16:217–228 (1980): sole corn 200, sole soybean 60; strips on half
 		// the land yielding 230 and 57 per strip acre → 115 and 28.5 per total acre → LER 1.050
 		expect(
 			landEquivalentRatio([
@@ -12,7 +12,7 @@ describe('landEquivalentRatio', () => {
 				{ intercropYield: 28.5, soleYield: 60 }
 			])
 		).toBeCloseTo(1.05, 10);
-		// [K] Mead & Willey (1980): strips yielding 220 and 54 → 110 and 27 per total acre → LER 1.000
+		// Computed: Mead & Willey (1980): strips yielding 220 and 54 → 110 and 27 per total acre → LER 1.000
 		expect(
 			landEquivalentRatio([
 				{ intercropYield: 110, soleYield: 200 },
@@ -71,14 +71,14 @@ describe('landEquivalentRatio', () => {
 
 describe('landEquivalentRatioFromStrips', () => {
 	it('matches the worked values', () => {
-		// [K] Mead & Willey (1980): strips at half the land each, yielding 230 and 57 → LER 1.050
+		// Computed: Mead & Willey (1980): strips at half the land each, yielding 230 and 57 → LER 1.050
 		expect(
 			landEquivalentRatioFromStrips([
 				{ stripYield: 230, landShare: 0.5, soleYield: 200 },
 				{ stripYield: 57, landShare: 0.5, soleYield: 60 }
 			])
 		).toBeCloseTo(1.05, 10);
-		// [K] Mead & Willey (1980): 220 and 54 → LER 1.000
+		// Computed: Mead & Willey (1980): 220 and 54 → LER 1.000
 		expect(
 			landEquivalentRatioFromStrips([
 				{ stripYield: 220, landShare: 0.5, soleYield: 200 },
@@ -88,7 +88,7 @@ describe('landEquivalentRatioFromStrips', () => {
 	});
 
 	it('weights strips by their share of the land', () => {
-		// [K] corn on 60 % at 220, soybean on 40 % at 57: 0.6 × 220/200 + 0.4 × 57/60 = 0.66 + 0.38 = 1.04
+		// Computed: corn on 60 % at 220, soybean on 40 % at 57: 0.6 × 220/200 + 0.4 × 57/60 = 0.66 + 0.38 = 1.04
 		expect(
 			landEquivalentRatioFromStrips([
 				{ stripYield: 220, landShare: 0.6, soleYield: 200 },

@@ -6,18 +6,18 @@ const HOUR = 3_600_000;
 
 describe('restrictionEnds', () => {
 	it('counts an REI in hours from the end of the application', () => {
-		// [K] 40 CFR 170 (Worker Protection Standard): 12-h REI ending 14:00 day 1 → entry from 02:00 day 2
+		// Computed: 40 CFR 170 (Worker Protection Standard): 12-h REI ending 14:00 day 1 → entry from 02:00 day 2
 		expect(restrictionEnds(new Date(2025, 6, 1, 14, 0), { hours: 12 })).toEqual(new Date(2025, 6, 2, 2, 0));
-		// [K] 4-h REI ending 09:30 → 13:30 the same day
+		// Computed: 4-h REI ending 09:30 → 13:30 the same day
 		expect(restrictionEnds(new Date(2025, 6, 1, 9, 30), { hours: 4 })).toEqual(new Date(2025, 6, 1, 13, 30));
 	});
 
 	it('counts PHI and grazing intervals in calendar days', () => {
-		// [C] common practice worked value (interval from the label, per NPIC): applied 1 July, PHI 30 d → harvest from 31 July
+		// common practice worked value (interval from the label, per NPIC): applied 1 July, PHI 30 d → harvest from 31 July
 		expect(restrictionEnds(new Date(2025, 6, 1, 10, 0), { days: 30 })).toEqual(new Date(2025, 6, 31, 10, 0));
-		// [C] common practice worked value: grazing interval 14 d → grazing from 15 July
+		// common practice worked value: grazing interval 14 d → grazing from 15 July
 		expect(restrictionEnds(new Date(2025, 6, 1, 10, 0), { days: 14 })).toEqual(new Date(2025, 6, 15, 10, 0));
-		// [K] calendar days run across month ends: 20 July + 30 d → 19 August
+		// Computed: calendar days run across month ends: 20 July + 30 d → 19 August
 		expect(restrictionEnds(new Date(2025, 6, 20, 10, 0), { days: 30 })).toEqual(new Date(2025, 7, 19, 10, 0));
 	});
 
@@ -95,12 +95,12 @@ describe('restrictionEnds', () => {
 describe('longestRestriction', () => {
 	it('returns the interval that ends last (40 CFR 170: the longest applies)', () => {
 		const end = new Date(2025, 6, 1, 14, 0);
-		// [K] 40 CFR 170: tank mix with 12-h, 48-h and 24-h REIs → the 48-h one governs, entry 3 July 14:00
+		// Computed: 40 CFR 170: tank mix with 12-h, 48-h and 24-h REIs → the 48-h one governs, entry 3 July 14:00
 		expect(longestRestriction(end, [{ hours: 12 }, { hours: 48 }, { hours: 24 }])).toEqual({
 			ends: new Date(2025, 6, 3, 14, 0),
 			index: 1
 		});
-		// [K] mixed units: 3 calendar days outlast 48 h
+		// Computed: mixed units: 3 calendar days outlast 48 h
 		expect(longestRestriction(end, [{ hours: 48 }, { days: 3 }])).toEqual({ ends: new Date(2025, 6, 4, 14, 0), index: 1 });
 		// a single product is its own longest
 		expect(longestRestriction(end, [{ hours: 4 }])).toEqual({ ends: new Date(2025, 6, 1, 18, 0), index: 0 });

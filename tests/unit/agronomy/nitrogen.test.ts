@@ -16,7 +16,7 @@ describe('poundsNitrogenPerGallon', () => {
 		expect(poundsNitrogenPerGallon(5.15, 82)).toBeCloseTo(4.22, 2);
 		// J. Camberato, Purdue Extension (2023): UAN 28 %, 10.6 lb/gal → 2.97 lb N/gal
 		expect(poundsNitrogenPerGallon(10.6, 28)).toBeCloseTo(2.97, 2);
-		// [M] from memory, not verified: UAN 32 %, ≈ 11.06 lb/gal → 3.54 lb N/gal
+		// from memory, not verified: UAN 32 %, ≈ 11.06 lb/gal → 3.54 lb N/gal
 		expect(poundsNitrogenPerGallon(11.06, 32)).toBeCloseTo(3.54, 2);
 	});
 
@@ -44,9 +44,9 @@ describe('poundsNitrogenPerAcre', () => {
 	it('matches the worked values', () => {
 		// J. Camberato, Purdue Extension (2023): 20 gal/ac of UAN 28 % at 10.6 lb/gal → 59.4 lb N/ac
 		expect(poundsNitrogenPerAcre(20, 10.6, 28)).toBeCloseTo(59.4, 1);
-		// [K] lb N/ac = gal/ac × lb/gal × %N ÷ 100 (Camberato, Purdue Extension 2023) with the [M] UAN 32 % density: 15 gal/ac at 11.06 lb/gal → 53.09 lb N/ac
+		// Computed: lb N/ac = gal/ac × lb/gal × %N ÷ 100 (Camberato, Purdue Extension 2023) with the from-memory UAN 32 % density: 15 gal/ac at 11.06 lb/gal → 53.09 lb N/ac
 		expect(poundsNitrogenPerAcre(15, 11.06, 32)).toBeCloseTo(53.09, 2);
-		// [K] no product, no nitrogen
+		// Computed: no product, no nitrogen
 		expect(poundsNitrogenPerAcre(0, 11.06, 32)).toBe(0);
 	});
 
@@ -71,9 +71,9 @@ describe('poundsNitrogenPerAcre', () => {
 
 describe('gallonsPerAcreForNitrogen', () => {
 	it('inverts poundsNitrogenPerAcre', () => {
-		// [K] Camberato (Purdue, 2023) relation solved for gallons: 59.36 lb N/ac of UAN 28 % at 10.6 lb/gal → 20 gal/ac
+		// Computed: Camberato (Purdue, 2023) relation solved for gallons: 59.36 lb N/ac of UAN 28 % at 10.6 lb/gal → 20 gal/ac
 		expect(gallonsPerAcreForNitrogen(59.36, 10.6, 28)).toBeCloseTo(20, 10);
-		// [K] 53.088 lb N/ac of UAN 32 % at the [M] 11.06 lb/gal → 15 gal/ac
+		// Computed: 53.088 lb N/ac of UAN 32 % at the from-memory 11.06 lb/gal → 15 gal/ac
 		expect(gallonsPerAcreForNitrogen(53.088, 11.06, 32)).toBeCloseTo(15, 10);
 	});
 
@@ -93,9 +93,9 @@ describe('gallonsPerAcreForNitrogen', () => {
 
 describe('gallonsForArea', () => {
 	it('multiplies area by rate', () => {
-		// [K] 12 ac at 15 gal/ac → 180 gal
+		// Computed: 12 ac at 15 gal/ac → 180 gal
 		expect(gallonsForArea(12, 15)).toBe(180);
-		// [K] 2.5 ac at 20 gal/ac → 50 gal
+		// Computed: 2.5 ac at 20 gal/ac → 50 gal
 		expect(gallonsForArea(2.5, 20)).toBe(50);
 	});
 
@@ -107,9 +107,9 @@ describe('gallonsForArea', () => {
 
 describe('poundsNitrogenTotal', () => {
 	it('is the per-acre figure times the area', () => {
-		// [K] 12 ac × 15 gal/ac of UAN 32 % at the [M] 11.06 lb/gal → 12 × 53.088 = 637.056 lb N
+		// Computed: 12 ac × 15 gal/ac of UAN 32 % at the from-memory 11.06 lb/gal → 12 × 53.088 = 637.056 lb N
 		expect(poundsNitrogenTotal(12, 15, 11.06, 32)).toBeCloseTo(637.056, 6);
-		// [K] from Camberato (Purdue, 2023): 10 ac × 20 gal/ac of UAN 28 % → 593.6 lb N
+		// Computed: from Camberato (Purdue, 2023): 10 ac × 20 gal/ac of UAN 28 % → 593.6 lb N
 		expect(poundsNitrogenTotal(10, 20, 10.6, 28)).toBeCloseTo(593.6, 6);
 	});
 

@@ -43,7 +43,7 @@ describe('seedsPerAcre', () => {
 
 describe('seedSpacingIn', () => {
 	it('matches the worked values', () => {
-		// [K] from the Iowa State Agronomy 212 formula: 30-in rows at 34,000 seeds/ac → 6.15 in
+		// Computed: from the Iowa State Agronomy 212 formula: 30-in rows at 34,000 seeds/ac → 6.15 in
 		expect(seedSpacingIn(30, 34_000)).toBeCloseTo(6.15, 2);
 		// Purdue (R. Nielsen, as reported in trade press): 36,000 plants/ac at 30-in rows → 5.8 in
 		expect(seedSpacingIn(30, 36_000)).toBeCloseTo(5.8, 1);
@@ -72,9 +72,9 @@ describe('seedsPerFootOfRow', () => {
 
 describe('rowFeetPerAcre', () => {
 	it('matches the worked value', () => {
-		// [K] from the Iowa State Agronomy 212 formula: 17,424 ft of row per acre at 30 in
+		// Computed: from the Iowa State Agronomy 212 formula: 17,424 ft of row per acre at 30 in
 		expect(rowFeetPerAcre(30)).toBeCloseTo(17_424, 6);
-		// [K] same formula: 34,848 ft at 15 in
+		// Computed: same formula: 34,848 ft at 15 in
 		expect(rowFeetPerAcre(15)).toBeCloseTo(34_848, 6);
 	});
 
@@ -107,9 +107,9 @@ describe('twinRowSeedSpacingIn', () => {
 
 describe('seedUnits', () => {
 	it('matches the worked value', () => {
-		// [K] acres × seeds/ac ÷ seeds per unit: 80 ac × 34,000 ÷ 80,000 = 34.0 units
+		// Computed: acres × seeds/ac ÷ seeds per unit: 80 ac × 34,000 ÷ 80,000 = 34.0 units
 		expect(seedUnits(80, 34_000, 80_000)).toBeCloseTo(34, 12);
-		// [K] 81 ac at 34,000 on 80,000-kernel units → 34.425 units, not rounded
+		// Computed: 81 ac at 34,000 on 80,000-kernel units → 34.425 units, not rounded
 		expect(seedUnits(81, 34_000, 80_000)).toBeCloseTo(34.425, 12);
 	});
 
@@ -122,9 +122,9 @@ describe('seedUnits', () => {
 
 describe('SEED_UNIT_PRESETS', () => {
 	it('holds the usual unit sizes, marked common practice', () => {
-		// [C] common practice, no published source: corn 80,000 kernels per unit
+		// common practice, no published source: corn 80,000 kernels per unit
 		expect(SEED_UNIT_PRESETS.corn.seedsPerUnit).toBe(80_000);
-		// [C] common practice, no published source: soybean 140,000 seeds per unit
+		// common practice, no published source: soybean 140,000 seeds per unit
 		expect(SEED_UNIT_PRESETS.soybean.seedsPerUnit).toBe(140_000);
 		expect(SEED_UNIT_PRESETS.corn.basis).toBe('common practice');
 		expect(SEED_UNIT_PRESETS.soybean.basis).toBe('common practice');
@@ -138,18 +138,18 @@ describe('SEED_UNIT_PRESETS', () => {
 
 describe('seedUnitEstimate', () => {
 	it('gives exact and whole units from the crop preset', () => {
-		// [K] 80 ac × 34,000 ÷ 80,000 = 34.0 units exactly: no extra unit from rounding up
+		// Computed: 80 ac × 34,000 ÷ 80,000 = 34.0 units exactly: no extra unit from rounding up
 		expect(seedUnitEstimate({ acres: 80, seedsPerAcre: 34_000, crop: 'corn' })).toEqual({
 			seeds: 2_720_000,
 			seedsPerUnit: 80_000,
 			exactUnits: 34,
 			wholeUnits: 34
 		});
-		// [K] 81 ac → 34.425 units → 35 whole units
+		// Computed: 81 ac → 34.425 units → 35 whole units
 		const corn = seedUnitEstimate({ acres: 81, seedsPerAcre: 34_000, crop: 'corn' });
 		expect(corn.exactUnits).toBeCloseTo(34.425, 12);
 		expect(corn.wholeUnits).toBe(35);
-		// [K] with the [C] soybean preset: 50 ac × 150,000 ÷ 140,000 = 53.57 → 54
+		// Computed: with the common-practice soybean preset: 50 ac × 150,000 ÷ 140,000 = 53.57 → 54
 		const soy = seedUnitEstimate({ acres: 50, seedsPerAcre: 150_000, crop: 'soybean' });
 		expect(soy.seedsPerUnit).toBe(140_000);
 		expect(soy.exactUnits).toBeCloseTo(53.5714, 4);
@@ -157,7 +157,7 @@ describe('seedUnitEstimate', () => {
 	});
 
 	it('lets seeds per unit override the preset', () => {
-		// [K] 50 ac × 150,000 ÷ 130,000 = 57.69 → 58
+		// Computed: 50 ac × 150,000 ÷ 130,000 = 57.69 → 58
 		const soy = seedUnitEstimate({ acres: 50, seedsPerAcre: 150_000, crop: 'soybean', seedsPerUnit: 130_000 });
 		expect(soy.seedsPerUnit).toBe(130_000);
 		expect(soy.exactUnits).toBeCloseTo(57.6923, 4);
@@ -167,12 +167,12 @@ describe('seedUnitEstimate', () => {
 	});
 
 	it('does not round floating-point dust up to an extra unit', () => {
-		// [K] 8.8 ac × 100,000 ÷ 80,000 = 11 units; in binary floating point it comes out as 11.000000000000002
+		// Computed: 8.8 ac × 100,000 ÷ 80,000 = 11 units; in binary floating point it comes out as 11.000000000000002
 		expect((8.8 * 100_000) / 80_000).toBeGreaterThan(11);
 		const estimate = seedUnitEstimate({ acres: 8.8, seedsPerAcre: 100_000, crop: 'corn' });
 		expect(estimate.exactUnits).toBeCloseTo(11, 12);
 		expect(estimate.wholeUnits).toBe(11);
-		// [K] 4.9 ac × 200,000 ÷ 140,000 = 7 units (7.000000000000001 in floating point)
+		// Computed: 4.9 ac × 200,000 ÷ 140,000 = 7 units (7.000000000000001 in floating point)
 		expect(seedUnitEstimate({ acres: 4.9, seedsPerAcre: 200_000, crop: 'soybean' }).wholeUnits).toBe(7);
 	});
 

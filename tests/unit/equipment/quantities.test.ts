@@ -51,7 +51,7 @@ describe('seed amounts', () => {
 		]);
 		const acresA = acresOf(lanes, (l) => l.crop === 'corn' && l.index % 4 === 0);
 		expect(q.varieties[0].unitsExact).toBeCloseTo((acresA * 34_000) / 80_000, 9); // arithmetic: acres × seeds/ac ÷ seeds per unit
-		// 40 ac × 140,000 ÷ 140,000 = 40.0 units (140,000 a unit: common practice [C]).
+		// 40 ac × 140,000 ÷ 140,000 = 40.0 units (140,000 a unit: common practice).
 		expect(q.varieties[1].acres).toBeCloseTo(40, 4);
 		expect(q.varieties[1].unitsExact).toBeCloseTo(40.0, 4);
 		expect(q.totals.byCrop.corn.unitsExact).toBeCloseTo(17.0, 4);
@@ -65,7 +65,7 @@ describe('seed amounts', () => {
 		const assignments = lanes.map((l) => assign(l.index, l.crop === 'corn' ? 'hybrid A' : 'variety S', l.crop === 'corn' ? 34_000 : 140_000));
 		const q = seedAndFertilizerQuantities(lanes, assignments, split(), { seedsPerUnit: { soybean: 130_000 }, unitsPerBag: { corn: 50 } });
 		const [cornQ, soyQ] = q.varieties;
-		// 40 ac × 140,000 ÷ 130,000 = 43.08 units → 44 whole units [K].
+		// 40 ac × 140,000 ÷ 130,000 = 43.08 units → 44 whole units (arithmetic).
 		expect(soyQ.unitsExact).toBeCloseTo(43.077, 3);
 		expect(soyQ.unitsWhole).toBe(44);
 		expect(soyQ.seedsPerUnitBasis).toBe('entered');
