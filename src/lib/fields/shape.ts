@@ -35,7 +35,8 @@ export interface FieldMeasure {
  * @throws GeometryError with a message saying what is wrong and where
  */
 export function measureFieldShape(shape: FieldShape): FieldMeasure {
-	checkVertexCount(shape.exclusions.reduce((n, x) => n + countPositions(x.geometry), countPositions(shape.boundary)), 'field boundary with its exclusions');
+	const corners = shape.exclusions.reduce((n, x) => n + countPositions(x.geometry), countPositions(shape.boundary));
+	checkVertexCount(corners, shape.exclusions.length ? 'field boundary with its exclusions' : 'field boundary');
 	checkOutline(shape.boundary, 'field boundary');
 	const acres = geodesicAcres(shape.boundary);
 	if (!(acres >= MIN_FIELD_ACRES)) {

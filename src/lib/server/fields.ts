@@ -5,7 +5,8 @@ import { recordAudit } from './audit';
 import { canSeeField, isUuid, type FarmAccess } from './access';
 import { AppError, invalid, notFound, versionConflict } from './errors';
 import { GeometryError } from '../geometry/index';
-import { measureFieldShape, type Exclusion, type FieldMeasure } from '../fields/shape';
+import type { Exclusion, FieldMeasure } from '../fields/shape';
+import { geometryPool } from './geometry-pool';
 import type { FieldCreateInput, FieldPatchInput } from '../schemas/field';
 
 export interface Field {
@@ -58,10 +59,13 @@ function toField(r: any): Field {
 	};
 }
 
-/** Measures the outline, turning geometry problems into field errors on the right input. */
-export function measureOrRefuse(boundary: Polygon | MultiPolygon, exclusions: Exclusion[]): FieldMeasure {
+/**
+ * Measures the outline in the geometry worker pool (a tangled outline never stalls other
+ * requests), turning geometry problems into field errors on the right input.
+ */
+export async function measureOrRefuse(boundary: Polygon | MultiPolygon, exclusions: Exclusion[]): Promise<FieldMeasure> {
 	try {
-		return measureFieldShape({ boundary, exclusions });
+		return await geometryPool().run({ kind: 'measure-field', shape: { boundary, exclusions } });
 	} catch (e) {
 		if (e instanceof GeometryError) {
 			const key = /exclusion/i.test(e.message) ? 'exclusions' : 'boundary';
@@ -108,7 +112,7 @@ function duplicateName(e: unknown, name: string | undefined) {
 async function insertField(trx: Knex.Transaction, access: FarmAccess, input: FieldCreateInput): Promise<Field> {
 	const boundary = input.boundary as Polygon | MultiPolygon;
 	const exclusions = input.exclusions as Exclusion[];
-	const m = measureOrRefuse(boundary, exclusions);
+	const m = await measureOrRefuse(boundary, exclusions);
 	const [row] = await trx('fields')
 		.insert({
 			farm_id: access.farm.id,
@@ -172,7 +176,7 @@ export async function updateField(access: FarmAccess, fieldId: string, patch: Fi
 			if (outlineChanged) {
 				const boundary = (patch.boundary ?? current.boundary) as Polygon | MultiPolygon;
 				const exclusions = (patch.exclusions ?? current.exclusions) as Exclusion[];
-				const m = measureOrRefuse(boundary, exclusions);
+				const m = await measureOrRefuse(boundary, exclusions);
 				const boundaryVersion = current.boundary_version + 1;
 				Object.assign(changes, {
 					boundary: JSON.stringify(boundary),
