@@ -57,6 +57,21 @@ describe('POST /api/layout-preview', () => {
 		expect(layout.lanes[0].offsetFt).toBe(-10);
 	}, 60_000);
 
+	it('refuses a pattern that would cut too many lanes with 400 on pattern', async () => {
+		const user = await makeUser('preview');
+		// 0.5 ft is the narrowest lane a plan allows; 2,627 ft ÷ 0.5 ft is ~5,254 lanes, but the
+		// 6,000-corner oval makes that too much work to cut.
+		const ring: [number, number][] = [];
+		for (let i = 0; i < 6_000; i++) ring.push([-93.895 + 0.005 * Math.cos((2 * Math.PI * i) / 6_000), 44.1035 + 0.0035 * Math.sin((2 * Math.PI * i) / 6_000)]);
+		ring.push(ring[0]);
+		const res = await preview(user, { boundary: { type: 'Polygon', coordinates: [ring] }, guidance: { a, b: [a[0], a[1] + 0.007] }, pattern: [{ kind: 'buffer', crop: 'grass', widthFt: 0.5 }] });
+		expect(res.status).toBe(400);
+		const body = await res.json();
+		expect(body.error.code).toBe('invalid');
+		expect(Object.keys(body.error.fields)).toEqual(['pattern']);
+		expect(body.error.fields.pattern[0]).toMatch(/^The field's outline has 6,001 corners and this pattern cuts it into about 5,2\d\d lanes: too much to lay out at once\./);
+	}, 60_000);
+
 	it('refuses an outline across the 180th meridian with 400 on boundary', async () => {
 		const user = await makeUser('preview');
 		const across = { type: 'Polygon', coordinates: [[[179.998, -17.01], [-179.998, -17.01], [-179.998, -17], [179.998, -17], [179.998, -17.01]]] };

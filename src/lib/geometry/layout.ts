@@ -20,10 +20,11 @@ const MAX_AB_DISTANCE_M = 5_000;
 /** Lanes one layout may cut; far beyond any field (a 20,000-acre section in 2-ft lanes is ~15,000). */
 export const MAX_LANES = 20_000;
 /**
- * Each lane is cut from the whole outline, so the work grows as corners × lanes; past this (several
- * seconds) a layout is refused before it starts. A 2,000-corner traced field in 5,000 lanes is 10⁷.
+ * Each lane is cut from the whole outline, so the work grows as corners × lanes; past this (a few
+ * seconds) a layout is refused before it starts. It admits a 50,000-corner field in 500 lanes, or a
+ * 2,000-corner one in 12,500.
  */
-export const MAX_LANE_WORK = 50_000_000;
+export const MAX_LANE_WORK = 25_000_000;
 
 type Polygonal = Polygon | MultiPolygon;
 

@@ -54,7 +54,7 @@ export interface PlanSummary {
 export function refuseLayoutError(e: GeometryError): AppError {
 	const key = e.code.startsWith('ab-')
 		? 'guidance'
-		: e.code === 'empty-pattern' || e.code === 'invalid-lane'
+		: e.code === 'empty-pattern' || e.code === 'invalid-lane' || e.code === 'too-many-lanes'
 			? 'pattern'
 			: e.code === 'invalid-number'
 				? /headland/i.test(e.message) ? 'headlandFt' : 'offsetFt'
