@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import type { Polygon } from 'geojson';
-import { createField } from '$lib/server/fields';
-import { getPlan, savePlan } from '$lib/server/plans';
+import { createField, updateField } from '$lib/server/fields';
+import { adoptVariant, getPlan, savePlan } from '$lib/server/plans';
 import { createEquipment } from '$lib/server/equipment';
 import { loadSheet } from '$lib/server/sheet';
 import { requireMember } from '$lib/server/access';
@@ -96,6 +96,43 @@ describe('reading a saved plan', () => {
 	});
 });
 
+describe('answers remembered per plan version', () => {
+	it('a renamed field and a newly adopted variant are never answered from an older remembered body', async () => {
+		const { members, access, field, settings, params, api } = await setup();
+		const geoPath = `${api}/lanes.geojson`;
+		const before = await lanesGeojson(event(members.crew, geoPath, params));
+		expect((await before.json()).features[1].properties.field).toBe('Read speed');
+		expect(before.headers.get('content-disposition')).toBe('attachment; filename="Read-speed-2026-lanes.geojson"');
+		await lanesGeojson(event(members.crew, geoPath, params)); // now remembered
+
+		await updateField(access, field.id, { name: 'Read speed east', version: field.version });
+		const renamed = await lanesGeojson(event(members.crew, geoPath, params, { 'if-none-match': before.headers.get('etag')! }));
+		expect(renamed.status).toBe(200);
+		expect((await renamed.json()).features[1].properties.field).toBe('Read speed east');
+		expect(renamed.headers.get('content-disposition')).toBe('attachment; filename="Read-speed-east-2026-lanes.geojson"');
+
+		const main = await (await planJson(event(members.crew, api, params))).json();
+		expect(main.variant).toBe('main');
+		await savePlan(access, field.id, 2026, { ...settings, offsetFt: 0, variant: 'no shift', version: 0 });
+		await adoptVariant(access, field.id, 2026, 'no shift');
+		const adopted = await (await planJson(event(members.crew, api, params))).json();
+		expect(adopted).toMatchObject({ variant: 'no shift', adopted: true, offsetFt: 0 });
+		const old = await (await planJson(event(members.crew, `${api}?variant=main`, params))).json();
+		expect(old).toMatchObject({ variant: 'main', adopted: false, offsetFt: 20 });
+	});
+
+	it('a missing plan or field still answers 404 in the one error shape', async () => {
+		const { members, farm, field } = await setup();
+		const none = await planJson(event(members.crew, `/api/farms/${farm.id}/fields/${field.id}/plans/2031`, { farmId: farm.id, fieldId: field.id, season: '2031' }));
+		expect(none.status).toBe(404);
+		expect((await none.json()).error.code).toBe('not_found');
+		const gone = '00000000-0000-4000-8000-000000000000';
+		const geo = await lanesGeojson(event(members.crew, `/api/farms/${farm.id}/fields/${gone}/plans/2026/lanes.geojson`, { farmId: farm.id, fieldId: gone, season: '2026' }));
+		expect(geo.status).toBe(404);
+		expect((await geo.json()).error.code).toBe('not_found');
+	});
+});
+
 describe('the plan page', () => {
 	it('sends each lane once, without a second copy of its assignment, and outlines to 7 decimals', async () => {
 		const { members, access, field, settings, params } = await setup();
@@ -112,6 +149,19 @@ describe('the plan page', () => {
 		expect(data.plan.assignments).toEqual([{ ...assignments[0] }]);
 		// The lanes part of the page is at least a fifth lighter than the plan's lanes as stored.
 		expect(JSON.stringify(data.plan.lanes).length).toBeLessThan(JSON.stringify(saved.lanes).length * 0.8);
+	});
+
+	it('draws a plan on the outline it was laid out on, and a new season on the field\'s current one', async () => {
+		const { members, access, field, params } = await setup();
+		const wider = rectangle(700, 1320);
+		const moved = await updateField(access, field.id, { boundary: wider, reason: 'fence moved', version: field.version });
+		expect(moved.boundaryVersion).toBe(2);
+		const base = `/farms/${params.farmId}/fields/${field.id}/plans`;
+		const old = await planPage(event(members.crew, `${base}/2026`, params));
+		expect(old?.outline).toEqual({ version: 1, boundary: field.boundary, exclusions: [] });
+		const fresh = await planPage(event(members.crew, `${base}/2028`, { ...params, season: '2028' }));
+		expect(fresh?.plan).toBeNull();
+		expect(fresh?.outline).toEqual({ version: 2, boundary: wider, exclusions: [] });
 	});
 
 	it('shows the rotation from the current previous season and checks against the current planter', async () => {

@@ -1,13 +1,43 @@
-// Answers for reads of a saved plan: an ETag from the plan's id, version and last change (every save
-// makes a new version; adopting touches updated_at), 304 when the client already holds it, and the serialized body
-// remembered under the same tag so repeated reads skip serializing. Access is checked before any of
-// this runs, on every request.
+// Answers for reads of a saved plan. One light query reads the plan's stamp (id, version, last
+// change, adopted); the ETag comes from it, so a client holding this version gets 304 and a body
+// already serialized for it is sent again without reading the lanes. Every save makes a new version
+// and adopting touches updated_at, so a stamp never names two different bodies. Access is checked
+// before any of this runs, on every request, and the stamp query applies the same farm, field-scope
+// and deleted-row rules as getPlan.
 import { createHash } from 'node:crypto';
+import { db } from './db';
+import { canSeeField, isUuid, type FarmAccess } from './access';
 import { versionedMemo } from './versioned-memo';
+
+export interface PlanStamp {
+	id: string;
+	version: number;
+	adopted: boolean;
+	updatedAt: Date | string;
+	fieldName: string;
+}
 
 // Bump when the shape of a plan answer changes, so clients do not keep an old body.
 const FORMAT = 1;
 const bodies = versionedMemo<string>(64);
+
+/** The stamp of the season's adopted plan (or the named variant); null when there is none to show. */
+export async function planStamp(access: FarmAccess, fieldId: string, season: number, variant?: string): Promise<PlanStamp | null> {
+	if (!isUuid(fieldId) || !canSeeField(access, fieldId)) return null;
+	const q = db()('plans as p')
+		.join('fields as f', 'f.id', 'p.field_id')
+		.whereNull('f.deleted_at')
+		.whereNull('p.deleted_at')
+		.where({ 'p.farm_id': access.farm.id, 'p.field_id': fieldId, 'p.season': season });
+	const row = await (variant ? q.whereRaw('lower(p.variant) = lower(?)', [variant]) : q.where({ 'p.adopted': true })).first(
+		'p.id',
+		'p.version',
+		'p.adopted',
+		'p.updated_at',
+		'f.name as field_name'
+	);
+	return row ? { id: row.id, version: row.version, adopted: row.adopted, updatedAt: row.updated_at, fieldName: row.field_name } : null;
+}
 
 /** A weak validator for one plan answer; `extra` names anything else the body shows (e.g. the field's name). */
 export function planEtag(kind: string, plan: { id: string; version: number; adopted: boolean; updatedAt: Date | string }, extra = ''): string {
@@ -21,8 +51,8 @@ function matches(ifNoneMatch: string | null, etag: string): boolean {
 	return ifNoneMatch.split(',').some((t) => t.trim() === '*' || t.trim().replace(/^W\//, '') === bare);
 }
 
-/** 304 when the request already holds this version, else 200 with the (remembered) body. */
-export async function planResponse(request: Request, etag: string, contentType: string, serialize: () => string, headers: Record<string, string> = {}): Promise<Response> {
+/** 304 when the request already holds this version, else 200 with the body (remembered per tag). */
+export async function planResponse(request: Request, etag: string, contentType: string, serialize: () => string | Promise<string>, headers: Record<string, string> = {}): Promise<Response> {
 	const common = { etag, 'cache-control': 'private, no-cache', ...headers };
 	if (matches(request.headers.get('if-none-match'), etag)) return new Response(null, { status: 304, headers: common });
 	const body = await bodies.get(etag, async () => serialize());

@@ -41,7 +41,9 @@ export const load: PageServerLoad = async (event) => {
 			listPlans(access, event.params.fieldId),
 			listEquipment(access)
 		]);
-		const outline = await getBoundaryVersion(access, field.id, plan?.boundaryVersion ?? field.boundaryVersion);
+		const wanted = plan?.boundaryVersion ?? field.boundaryVersion;
+		// The field row carries its current outline; only a plan laid out on an older one reads that version.
+		const outline = wanted === field.boundaryVersion ? { version: wanted, boundary: field.boundary, exclusions: field.exclusions } : await getBoundaryVersion(access, field.id, wanted);
 		const previous = plan && plans.find((p) => p.season === plan.season - 1 && p.adopted);
 		const [rotation, checks] = plan
 			? await Promise.all([
