@@ -85,9 +85,9 @@ describe('queries per request do not grow with the data', () => {
 			compare: [await small.compare(), await large.compare()]
 		};
 		for (const [what, [few, many]] of Object.entries(counts)) expect(many, what).toBe(few);
-		// Membership, plan row, lanes: a plan read is three statements whatever its size.
-		expect(counts.plan[0]).toBe(3);
-		expect(counts.geojson[0]).toBe(4); // and the field's name for the file
+		// Membership, the plan's version stamp, plan row, lanes: a few statements whatever its size.
+		expect(counts.plan[0]).toBeLessThanOrEqual(4);
+		expect(counts.geojson[0]).toBeLessThanOrEqual(5); // and the field's name for the file
 		expect(counts.page[0]).toBeLessThanOrEqual(16);
 	}, 60_000);
 
