@@ -71,7 +71,7 @@ export async function apiSignUp(request: APIRequestContext, baseURL: string, nam
 	const res = await request.post('/sign-up', { form: { name, email, password }, headers: { origin } });
 	expect(res.status()).toBe(200);
 	const mail = await waitForMail(request, email, /^Confirm your e-mail for Stripwright$/);
-	const confirmed = await request.post(new URL(firstLink(mail.text)).pathname, { form: { confirm: 'yes' }, headers: { origin }, maxRedirects: 0 });
+	const confirmed = await request.post(new URL(firstLink(mail.text)).pathname, { form: { confirm: 'yes' }, headers: { origin, accept: 'text/html' }, maxRedirects: 0 });
 	expect(confirmed.status()).toBe(303);
 }
 
