@@ -109,10 +109,9 @@ function duplicateName(e: unknown, name: string | undefined) {
 	return e;
 }
 
-async function insertField(trx: Knex.Transaction, access: FarmAccess, input: FieldCreateInput): Promise<Field> {
+async function insertField(trx: Knex.Transaction, access: FarmAccess, input: FieldCreateInput, m: FieldMeasure): Promise<Field> {
 	const boundary = input.boundary as Polygon | MultiPolygon;
 	const exclusions = input.exclusions as Exclusion[];
-	const m = await measureOrRefuse(boundary, exclusions);
 	const [row] = await trx('fields')
 		.insert({
 			farm_id: access.farm.id,
@@ -143,15 +142,20 @@ export async function createField(access: FarmAccess, input: FieldCreateInput): 
 	return (await createFields(access, [input]))[0];
 }
 
-/** Creates several fields all or nothing (an import never leaves half its fields behind). */
+/**
+ * Creates several fields all or nothing (an import never leaves half its fields behind). Outlines
+ * are measured before the transaction, so no connection is held while the geometry runs.
+ */
 export async function createFields(access: FarmAccess, inputs: FieldCreateInput[]): Promise<Field[]> {
+	const measures: FieldMeasure[] = [];
+	for (const input of inputs) measures.push(await measureOrRefuse(input.boundary as Polygon | MultiPolygon, input.exclusions as Exclusion[]));
 	let current: string | undefined;
 	try {
 		return await db().transaction(async (trx) => {
 			const out: Field[] = [];
-			for (const input of inputs) {
+			for (const [i, input] of inputs.entries()) {
 				current = input.name;
-				out.push(await insertField(trx, access, input));
+				out.push(await insertField(trx, access, input, measures[i]));
 			}
 			return out;
 		});
@@ -162,21 +166,23 @@ export async function createFields(access: FarmAccess, inputs: FieldCreateInput[
 
 /**
  * Updates details and/or the outline. A new outline becomes a new boundary version; earlier
- * versions stay, so plans laid out on them keep their shape.
+ * versions stay, so plans laid out on them keep their shape. The outline is measured before the
+ * transaction; the version check under the row lock makes sure it is still the field measured.
  */
 export async function updateField(access: FarmAccess, fieldId: string, patch: FieldPatchInput): Promise<Field> {
-	await getField(access, fieldId);
+	const before = await getField(access, fieldId);
+	if (patch.version !== before.version) throw versionConflict('field', before.version, patch.version);
+	const outlineChanged = patch.boundary !== undefined || patch.exclusions !== undefined;
+	const boundary = (patch.boundary ?? before.boundary) as Polygon | MultiPolygon;
+	const exclusions = (patch.exclusions ?? before.exclusions) as Exclusion[];
+	const m = outlineChanged ? await measureOrRefuse(boundary, exclusions) : null;
 	try {
 		return await db().transaction(async (trx) => {
 			const current = await trx('fields').where({ id: fieldId, farm_id: access.farm.id }).whereNull('deleted_at').forUpdate().first();
 			if (!current) throw notFound('field');
 			if (patch.version !== current.version) throw versionConflict('field', current.version, patch.version);
 			const changes: Record<string, unknown> = { ...details(patch), version: current.version + 1, updated_at: trx.fn.now() };
-			const outlineChanged = patch.boundary !== undefined || patch.exclusions !== undefined;
-			if (outlineChanged) {
-				const boundary = (patch.boundary ?? current.boundary) as Polygon | MultiPolygon;
-				const exclusions = (patch.exclusions ?? current.exclusions) as Exclusion[];
-				const m = await measureOrRefuse(boundary, exclusions);
+			if (m) {
 				const boundaryVersion = current.boundary_version + 1;
 				Object.assign(changes, {
 					boundary: JSON.stringify(boundary),
