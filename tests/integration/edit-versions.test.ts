@@ -54,6 +54,12 @@ describe('field edits carry the version they were made on', () => {
 		expect(refused.error.code).toBe('invalid');
 		expect(refused.error.fields.version).toEqual(['Send the version of the field you edited (a whole number), so a newer save is not overwritten.']);
 
+		// Another farm's field answers 404 before its body is looked at.
+		const other = await setup();
+		const foreign = await patchField(jsonEvent(members.manager, `/api/farms/${farm.id}/fields/${other.field.id}`, { farmId: farm.id, fieldId: other.field.id }, { name: 'Taken' }));
+		expect(foreign.status).toBe(404);
+		expect((await foreign.json()).error.code).toBe('not_found');
+
 		const access = await requireMember(fakeEvent(members.owner), farm.id, 'read');
 		const stored = await getField(access, field.id);
 		expect(stored).toMatchObject({ name: 'Renamed', version: 2, boundaryVersion: 1, acres: field.acres });

@@ -63,15 +63,20 @@ export async function getEquipment(access: FarmAccess, id: string): Promise<Equi
 	return toEquipment(row);
 }
 
-/** The planter the sheet uses: the one asked for, else the farm's default, else its only planter. */
-export async function findPlanter(access: FarmAccess, id?: string | null): Promise<Equipment | null> {
+/** From the farm's implements, the planter the sheet uses: the one asked for, else the default, else the only planter. */
+export function choosePlanter(equipment: Equipment[], id?: string | null): Equipment | null {
 	if (id) {
-		const e = await getEquipment(access, id);
+		const e = equipment.find((x) => x.id === id);
+		if (!e) throw notFound('implement');
 		if (e.kind !== 'planter') throw invalid(`${e.name} is not a planter.`);
 		return e;
 	}
-	const planters = (await listEquipment(access)).filter((e) => e.kind === 'planter');
+	const planters = equipment.filter((e) => e.kind === 'planter');
 	return planters.find((p) => p.isDefaultPlanter) ?? (planters.length === 1 ? planters[0] : null);
+}
+
+export async function findPlanter(access: FarmAccess, id?: string | null): Promise<Equipment | null> {
+	return choosePlanter(await listEquipment(access), id);
 }
 
 export async function createEquipment(access: FarmAccess, input: EquipmentInput): Promise<Equipment> {

@@ -1,7 +1,7 @@
 import type { FarmAccess } from './access';
 import { getBoundaryVersion, getField } from './fields';
 import { getPlan } from './plans';
-import { findPlanter, listEquipment } from './equipment';
+import { choosePlanter, listEquipment } from './equipment';
 import { invalid } from './errors';
 import { buildSheet, SheetError } from '../sheet/build';
 import type { SheetData } from '../sheet/types';
@@ -11,8 +11,8 @@ export async function loadSheet(access: FarmAccess, fieldId: string, season: num
 	const field = await getField(access, fieldId);
 	const plan = await getPlan(access, field.id, season, opts.variant);
 	const outline = await getBoundaryVersion(access, field.id, plan.boundaryVersion);
-	const planter = await findPlanter(access, opts.planterId);
 	const equipment = await listEquipment(access);
+	const planter = choosePlanter(equipment, opts.planterId);
 	try {
 		return buildSheet({
 			farmName: access.farm.name,

@@ -12,6 +12,7 @@ export const GET: RequestHandler = api(async (event) => {
 
 export const PATCH: RequestHandler = api(async (event) => {
 	const access = await requireMember(event, event.params.farmId, 'editPlans');
+	await getField(access, event.params.fieldId); // another farm's field is a 404 whatever the body says
 	const patch = await readJson(event, fieldPatchSchema);
 	return json(await updateField(access, event.params.fieldId, patch));
 });
