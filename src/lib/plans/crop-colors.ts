@@ -1,11 +1,13 @@
-// Our own crop colours: distinct on screen and, with the lane numbers, in a grey printout.
+// Our own crop colours: distinct on screen and, with the lane numbers, in a grey printout. Crops that
+// share a field in strips differ in lightness too (soybean dark, corn middle, small grains pale), so
+// they stay apart for red-green colour blindness; lane kinds add a mark on the map.
 const FIXED: Record<string, string> = {
 	corn: '#d19a0f',
 	soybean: '#3f7d20',
 	soybeans: '#3f7d20',
 	pasture: '#86b35b',
-	wheat: '#b5651d',
-	oats: '#c9b458',
+	wheat: '#e8c9a0',
+	oats: '#f0e4b0',
 	'cover mix': '#7a5ca8',
 	cover: '#7a5ca8',
 	buffer: '#8d8d8d'
