@@ -12,16 +12,16 @@ test('the plan shows the planter checks; the sheet lists passes, stops on the mi
 	await page.goto(`${SHELTER}/plans/2026`);
 	const checks = page.getByTestId('planter-checks');
 	await expect(checks).toContainText('16-row split planter');
-	await expect(checks).toContainText('row unit 9');
+	await expect(checks).toContainText(/\brow unit 9\b/);
 	await checks.getByRole('link', { name: 'Open the seeding sheet' }).click();
 
 	await expect(page.getByRole('heading', { level: 1 })).toHaveText('Seeding sheet — Shelter Lanes 2026');
 	await expect(page.getByTestId('sheet-stops')).toContainText(/STOP: \d+ problems? to fix before planting/);
-	await expect(page.getByTestId('sheet-stops')).toContainText('Nitrogen (UAN 32 %) is on at row unit 9');
+	await expect(page.getByTestId('sheet-stops')).toContainText(/Nitrogen \(UAN 32 %\) is on at row unit 9\b/);
 	const units = page.getByTestId('row-unit-table').locator('tbody tr');
 	await expect(units).toHaveCount(16);
 	await expect(units.nth(8)).toContainText('soybean');
-	await expect(page.getByTestId('sheet-passes').locator('li').first()).toContainText('Pass 1');
+	await expect(page.getByTestId('sheet-passes').locator('li').first()).toContainText(/\bPass 1\b/);
 	const plan = await (await page.request.get(`/api/farms/${DEMO_FARM_ID}/fields/5a1e0000-0000-4000-8000-0000000001f3/plans/2026`)).json();
 	expect(plan.lanes.length).toBeGreaterThan(80);
 	await expect(page.getByTestId('sheet-lanes').locator('tbody tr')).toHaveCount(plan.lanes.length);

@@ -28,6 +28,9 @@ async function parsePdf(pdf: Buffer): Promise<ParsedPdf> {
 
 const escape = (s: string) => s.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
 
+/** The phrase stands whole in the text: not as the start of a longer number or word ("16" is not "160"). */
+const wholePhrase = (phrase: string) => new RegExp(`(^|\\s)${escape(phrase)}(?=\\s|$)`);
+
 function expectEveryLaneLine(parsed: ParsedPdf, sheet: SheetData): void {
 	const text = parsed.pages.join('\n');
 	for (const lane of sheet.lanes) {
@@ -113,15 +116,15 @@ describe('renderSheetPdf: small sheet with a planter', () => {
 	it('prints one line per pass with its start end, lanes and units on, in driving order', () => {
 		const text = parsed.pages.join('\n');
 		expect(text).toMatch(/^Pass 1 from A 1–2 units 1–8 corn \(hybrid A\), 9–16 soybean\b/m);
-		expect(parsed.flat).toContain('Pass 1 from A 1–2 units 1–8 corn (hybrid A), 9–16 soybean (variety S1) 16');
+		expect(parsed.flat).toMatch(wholePhrase('Pass 1 from A 1–2 units 1–8 corn (hybrid A), 9–16 soybean (variety S1) 16'));
 		expect(text).toMatch(/^Pass 2 from B 3–4 /m);
-		expect(parsed.flat).toContain('Pass 3 from A 5 units 1–8 corn (hybrid A); units 9–16 off 8');
+		expect(parsed.flat).toMatch(wholePhrase('Pass 3 from A 5 units 1–8 corn (hybrid A); units 9–16 off 8'));
 		expect(text).not.toMatch(/^Pass 4 /m);
 		expect(text.indexOf('Pass 1 from A')).toBeLessThan(text.indexOf('Pass 2 from B'));
 	});
 
 	it('prints hazards, quantities, the sign-off line and every caution verbatim, cautions last', () => {
-		expect(parsed.flat).toContain('• Tile outlet at the north end of lane 3');
+		expect(parsed.flat).toMatch(wholePhrase('• Tile outlet at the north end of lane 3'));
 		expect(parsed.flat).toContain('Corn — hybrid A 3.6 units (288,000 seeds) 8.5 ac × 34,000 seeds/ac ÷ 80,000 per unit');
 		expect(parsed.flat).toContain('Row units checked before the first pass:');
 		expect(parsed.flat).toMatch(/\(name\) \(date\/time\)/);
@@ -187,7 +190,7 @@ describe('renderSheetPdf: farm with no planter', () => {
 		expect(parsed.pages[0].replace(/\s+/g, ' ')).toContain(NO_PLANTER);
 		expect(NO_PLANTER).toBe('No planter set up for this farm yet: passes and row units are not shown.');
 		expectEveryLaneLine(parsed, sheet);
-		expect(parsed.flat).toContain(`Lane 3 crop corn 20 ft 8 × 30 in ${sheet.lanes[2].acres.toFixed(2)}`);
+		expect(parsed.flat).toMatch(wholePhrase(`Lane 3 crop corn 20 ft 8 × 30 in ${sheet.lanes[2].acres.toFixed(2)}`));
 		expect(parsed.flat).not.toMatch(/Pass 1 from/);
 		expect(parsed.flat).not.toContain('Row units:');
 		expect(parsed.flat).not.toContain('Passes, in driving order');
