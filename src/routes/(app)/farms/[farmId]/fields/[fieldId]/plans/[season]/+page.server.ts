@@ -54,7 +54,8 @@ export const load: PageServerLoad = async (event) => {
 			: [null, null];
 		return {
 			equipment: equipment.filter((e) => e.kind !== 'planter' && e.kind !== 'sidedress').map((e) => ({ name: e.name, kind: e.kind, workingWidthFt: e.workingWidthFt })),
-			planterChecks: checks,
+			// A viewer the owner shows no equipment gets no planter section at all, not an empty one.
+			planterChecks: access.sees.equipment ? checks : null,
 			field: { id: field.id, name: field.name, boundaryVersion: field.boundaryVersion, acres: field.acres },
 			season,
 			// The page keeps assignments once (not again on every lane) and outlines to 1 cm.
