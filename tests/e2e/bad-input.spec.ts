@@ -210,7 +210,7 @@ test('a 50 MB chunked upload to the import routes is a 413, not a 400', async ({
 	const cookie = (await mine.context.cookies()).map((c) => `${c.name}=${c.value}`).join('; ');
 	const api = await chunkedUpload(`${origin}/api/farms/${mine.farmId}/fields/import`, { cookie, origin, accept: 'application/json' }, 50 * 1024 * 1024);
 	expect(api.status).toBe(413);
-	const message = 'The file is more than 10.1 MB; uploads are limited to 10.0 MB.';
+	const message = 'The file is larger than the limit: uploads are limited to 10.0 MB.';
 	expect(JSON.parse(api.body)).toEqual({ error: { code: 'too_large', message, fields: { file: [message] } } });
 	expect(api.sentBytes).toBeLessThan(50 * 1024 * 1024);
 

@@ -51,7 +51,7 @@ describe('reading an uploaded boundary file', () => {
 		const e = outcome as AppError;
 		expect(e.status).toBe(413);
 		expect(e.code).toBe('too_large');
-		expect(e.message).toBe('The file is more than 10.1 MB; uploads are limited to 10.0 MB.');
+		expect(e.message).toBe('The file is larger than the limit: uploads are limited to 10.0 MB.');
 		expect(sent()).toBeLessThan(11 * MB);
 	});
 

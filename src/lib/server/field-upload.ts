@@ -44,14 +44,14 @@ async function readAtMost(request: Request, limit: number): Promise<Uint8Array<A
 			if (size > limit) {
 				// Stop reading, but do not cancel: cancelling destroys the socket before the 413 goes out.
 				reader.releaseLock();
-				throw tooLarge(size, true);
+				throw tooLarge(null);
 			}
 			chunks.push(value);
 		}
 	} catch (e) {
 		if (e instanceof AppError) throw e;
 		// The server's own body limit ends the stream early: that is the same refusal.
-		if (isTooLarge(e)) throw tooLarge(size, true);
+		if (isTooLarge(e)) throw tooLarge(null);
 		throw new AppError(400, 'The upload was interrupted before it was complete; send the file again.', 'bad_upload');
 	}
 	const out = new Uint8Array(size);
@@ -68,8 +68,10 @@ function isTooLarge(e: unknown): boolean {
 	return status(e) === 413 || status((e as { cause?: unknown } | null)?.cause) === 413;
 }
 
-function tooLarge(bytes: number, atLeast = false) {
+/** The 413; `bytes` is the size when known (declared or counted whole), else null. */
+function tooLarge(bytes: number | null) {
 	const mb = (n: number) => (n / 1024 / 1024).toFixed(1);
-	const message = `The file is ${atLeast ? 'more than ' : ''}${mb(bytes)} MB; uploads are limited to ${mb(IMPORT_LIMITS.maxUploadBytes)} MB.`;
+	const limit = `uploads are limited to ${mb(IMPORT_LIMITS.maxUploadBytes)} MB`;
+	const message = bytes === null ? `The file is larger than the limit: ${limit}.` : `The file is ${mb(bytes)} MB; ${limit}.`;
 	return new AppError(413, message, 'too_large', { file: [message] });
 }

@@ -8,8 +8,8 @@ import { isSeasonText } from './season';
 /** Deep enough for any GeoJSON or plan body we take (a MultiPolygon position sits at depth 6). */
 export const MAX_JSON_DEPTH = 32;
 
-/** Form bodies above this are uploads; the upload module reads them, and their files may hold NUL bytes. */
-const FORM_SCAN_LIMIT = 1024 * 1024;
+/** Form bodies above this (past any body limit the server sets) are left to the route to refuse. */
+const FORM_SCAN_LIMIT = 16 * 1024 * 1024;
 
 export interface JsonProblem {
 	kind: 'nul' | 'depth';
@@ -119,21 +119,54 @@ export async function refuseBadRequest(event: RequestEvent): Promise<Response | 
 		return refuse(404, 'not_found', `No ${what} here: the ${what} id in the address is not a valid id.`);
 	}
 
+	if (request.method !== 'GET' && request.method !== 'HEAD' && url.searchParams.has('/default')) {
+		return refuse(404, 'not_found', 'There is no form action named "default" here.');
+	}
+
 	if (request.method !== 'GET' && request.method !== 'HEAD' && isFormBody(request)) {
-		const length = Number(request.headers.get('content-length') ?? NaN);
-		if (length > 0 && length <= FORM_SCAN_LIMIT) {
-			let data: FormData | null = null;
-			try {
-				data = await request.clone().formData();
-			} catch {
-				// A damaged body is the route's to refuse, in its own words.
-			}
-			const field = data && findNulInForm(data);
-			if (field) {
-				const message = 'Contains a NUL character (\\u0000), which text may not hold.';
-				return refuse(400, 'invalid', `The form field "${field}" contains a NUL character (\\u0000); remove it and try again.`, { [field]: [message] });
-			}
+		const body = await readFormCopy(request, FORM_SCAN_LIMIT);
+		if (body === 'damaged') {
+			return refuse(400, 'bad_form', 'The form data could not be read: the body is damaged or does not match its content type.');
+		}
+		const field = body && findNulInForm(body);
+		if (field) {
+			const message = 'Contains a NUL character (\\u0000), which text may not hold.';
+			return refuse(400, 'invalid', `The form field "${field}" contains a NUL character (\\u0000); remove it and try again.`, { [field]: [message] });
 		}
 	}
 	return null;
+}
+
+/**
+ * The form a request carries, read from a copy so the route still gets the body. Null when the
+ * body is larger than `limit` or ends early (the route refuses those, e.g. with a 413), whether or
+ * not it declared its length; 'damaged' when it cannot be read as the form its type names.
+ */
+async function readFormCopy(request: Request, limit: number): Promise<FormData | null | 'damaged'> {
+	if (Number(request.headers.get('content-length') ?? 0) > limit) return null;
+	const copy = request.clone();
+	if (!copy.body) return null;
+	const reader = copy.body.getReader();
+	const chunks: Uint8Array[] = [];
+	let size = 0;
+	try {
+		for (;;) {
+			const { done, value } = await reader.read();
+			if (done) break;
+			size += value.byteLength;
+			// Cancelling one copy leaves the route's copy of the stream untouched.
+			if (size > limit) {
+				void reader.cancel().catch(() => {});
+				return null;
+			}
+			chunks.push(value);
+		}
+	} catch {
+		return null;
+	}
+	try {
+		return await new Response(new Blob(chunks as BlobPart[]), { headers: { 'content-type': request.headers.get('content-type') ?? '' } }).formData();
+	} catch {
+		return 'damaged';
+	}
 }
