@@ -1,4 +1,4 @@
-import type { Handle, HandleServerError } from '@sveltejs/kit';
+import type { Handle, HandleServerError, ServerInit } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
 import { randomUUID } from 'node:crypto';
 import { clearSessionCookie, lucia, setSessionCookie } from '$lib/server/auth';
@@ -6,6 +6,12 @@ import { closeDb } from '$lib/server/db';
 import { applySecurityHeaders } from '$lib/server/security-headers';
 import { frameworkRefusal, fromDatabaseInputError } from '$lib/server/errors';
 import { refuseBadRequest } from '$lib/server/request-checks';
+import { geometryPool } from '$lib/server/geometry-pool';
+
+// A geometry thread loads its code at start-up, so the first layout or field save does not wait for it.
+export const init: ServerInit = () => {
+	geometryPool();
+};
 
 // adapter-node emits this after a graceful stop; an idle pool would otherwise keep the process alive.
 process.on('sveltekit:shutdown', () => {
