@@ -58,6 +58,15 @@ describe('request checks', () => {
 		expect(await res.json()).toEqual({ error: { code: 'not_found', message: 'There is no API at /api/nothing.' } });
 	});
 
+	it('a page answers with a plain page whose message is text: a hostile parameter name stays inert', async () => {
+		const res = (await refuseBadRequest(event('/farms/x?%3Cimg%20src%3Dx%20onerror%3Dalert(1)%3E=%00', { headers: { accept: 'text/html' } })))!;
+		expect(res.status).toBe(400);
+		expect(res.headers.get('content-type')).toBe('text/html; charset=utf-8');
+		const page = await res.text();
+		expect(page).toContain('<h1>The address contains a NUL character (%00) in the query parameter "&lt;img src=x onerror=alert(1)&gt;"; remove it and try again.</h1>');
+		expect(page).not.toContain('<img');
+	});
+
 	it('names where a NUL sits in an address, and ignores addresses without one', () => {
 		expect(findNulInUrl(new URL('http://h/a?variant=%00'))).toBe('the query parameter "variant"');
 		expect(findNulInUrl(new URL('http://h/a%00b'))).toBe('the path');

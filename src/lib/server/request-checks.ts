@@ -1,6 +1,6 @@
 // Checks every request passes before any route runs: values PostgreSQL cannot store (NUL in text),
 // ids that cannot be ids, and bodies nested past reason. Routes then only meet well-formed input.
-import { error, json, type RequestEvent } from '@sveltejs/kit';
+import { json, type RequestEvent } from '@sveltejs/kit';
 import { isUuid } from './access';
 import { AppError } from './errors';
 import { isSeasonText } from './season';
@@ -95,8 +95,8 @@ function isFormBody(request: Request) {
 
 /**
  * A refusal for a request no route should see, or null to let it through. /api answers in the
- * JSON error shape; a form action posted by the page script gets an action result; pages get
- * SvelteKit's plain error page.
+ * JSON error shape; a form action posted by the page script gets an action result; pages get a
+ * plain page saying what is wrong.
  */
 export async function refuseBadRequest(event: RequestEvent): Promise<Response | null> {
 	const { url, request } = event;
@@ -105,7 +105,7 @@ export async function refuseBadRequest(event: RequestEvent): Promise<Response | 
 		if (isApi) return json({ error: fields ? { code, message, fields } : { code, message } }, { status });
 		const wantsJson = (request.headers.get('accept') ?? '').includes('application/json');
 		if (request.method === 'POST' && wantsJson) return json({ type: 'error', error: { code, message } }, { status });
-		error(status, { code, message });
+		return plainErrorPage(status, message);
 	};
 
 	const nulInUrl = findNulInUrl(url);
@@ -169,4 +169,16 @@ async function readFormCopy(request: Request, limit: number): Promise<FormData |
 	} catch {
 		return 'damaged';
 	}
+}
+
+/** A bare page (no layout: no route has run) that says what is wrong; the message is text, never markup. */
+function plainErrorPage(status: number, message: string): Response {
+	const text = message.replaceAll('&', '&amp;').replaceAll('<', '&lt;').replaceAll('>', '&gt;');
+	const html = `<!doctype html>
+<html lang="en">
+<head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1"><title>${status} · Stripwright</title></head>
+<body><main><p>${status}</p><h1>${text}</h1><p><a href="/">Back to Stripwright</a></p></main></body>
+</html>
+`;
+	return new Response(html, { status, headers: { 'content-type': 'text/html; charset=utf-8' } });
 }
