@@ -96,7 +96,7 @@ export async function recordSignInSuccess(email: string) {
 
 /** Requests a signed-in user may make of each costly endpoint per window. */
 export const REQUEST_LIMITS = {
-	'layout-preview': { perWindow: 60, windowSeconds: 60, what: 'layout previews' }
+	'layout-preview': { perWindow: 120, windowSeconds: 60, what: 'layout previews' }
 } as const;
 
 /**
