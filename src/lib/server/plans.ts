@@ -6,7 +6,7 @@ import type { FarmAccess } from './access';
 import { AppError, invalid, notFound, versionConflict } from './errors';
 import { getBoundaryVersion, getField } from './fields';
 import { canSeeField, isUuid } from './access';
-import { GeometryError, layoutStrips, rotationMatrix, type Lane, type LaneSpec, type Layout, type LngLat } from '../geometry/index';
+import { GeometryError, rotationMatrix, type Lane, type LaneSpec, type Layout, type LngLat } from '../geometry/index';
 import type { LaneAssignment } from '../plans/types';
 import type { NextSeasonInput, PlanSaveInput } from '../schemas/plan';
 import { describeShift, shiftFeet } from '../plans/shift';
