@@ -34,6 +34,8 @@ test('sign up, create a farm, invite a member who accepts in another browser, ro
 	await p2.goto(link);
 	await expect(p2.getByText(/invites .* to join Test Meadow Farm as Crew/)).toBeVisible();
 	await p2.getByRole('link', { name: 'Create an account' }).click();
+	// The invited address comes filled in: only that address can accept.
+	await expect(p2.getByLabel('E-mail')).toHaveValue(crewEmail);
 	await p2.getByLabel('Your name').fill('Crew Tester');
 	await p2.getByLabel('E-mail').fill(crewEmail);
 	await p2.getByLabel('Password').fill('crew password 123');

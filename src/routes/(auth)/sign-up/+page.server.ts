@@ -10,7 +10,9 @@ import { runInBackground } from '$lib/server/background';
 
 export const load: PageServerLoad = async ({ locals, url }) => {
 	if (locals.user) redirect(303, safeRedirectTarget(url.searchParams.get('redirectTo')));
-	return { form: await superValidate(zod4(signUpSchema)) };
+	// An invitation link passes the invited address along, since only that address can accept it.
+	const email = url.searchParams.get('email')?.slice(0, 254) ?? '';
+	return { form: await superValidate({ email }, zod4(signUpSchema), { errors: false }) };
 };
 
 export const actions: Actions = {
