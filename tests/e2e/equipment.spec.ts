@@ -210,6 +210,11 @@ test('crew and viewer read the list but cannot add, edit or delete', async ({ br
 	await page.getByRole('button', { name: 'Save implement' }).click();
 	await expect(page.getByRole('status')).toHaveText('Saved Seed drill.');
 	const itemPath = new URL(await page.getByRole('link', { name: 'Seed drill' }).evaluate((a) => (a as HTMLAnchorElement).href)).pathname;
+	// Viewers see equipment only once the owner shows it to them.
+	await page.goto(`/farms/${farmId}/settings`);
+	await page.getByLabel("Show the farm's equipment to viewers (implements, planter setup and checks)").check();
+	await page.getByRole('button', { name: 'Save what viewers see' }).click();
+	await expect(page.getByText('What viewers see is saved.')).toBeVisible();
 
 	for (const role of ['crew', 'viewer'] as const) {
 		const member = await joinAs(browser, request, page, farmId, farmName, role);
