@@ -108,7 +108,17 @@ start_cluster() {
 
 stop_cluster() { run_pg "$PG_BIN/pg_ctl" -D "$PG_DATA" -m fast -w stop >/dev/null 2>&1 || true; }
 
-database_url() { printf 'postgres://stripwright:%s@127.0.0.1:%s/%s' "$PG_PASSWORD" "$PG_PORT" "$1"; }
+# The app talks to its own cluster through the cluster's Unix socket (in the data folder): on this
+# kind of machine a query over loopback TCP costs about a third more per request. The cluster still
+# listens on 127.0.0.1:PG_PORT for psql and other tools.
+# A socket path longer than the system allows (107 bytes) falls back to TCP.
+database_url() {
+	if [ ${#PG_DATA} -le 90 ] && [ -S "$PG_DATA/.s.PGSQL.$PG_PORT" ]; then
+		printf 'postgres://stripwright:%s@localhost/%s?host=%s&port=%s' "$PG_PASSWORD" "$1" "$PG_DATA" "$PG_PORT"
+	else
+		printf 'postgres://stripwright:%s@127.0.0.1:%s/%s' "$PG_PASSWORD" "$PG_PORT" "$1"
+	fi
+}
 
 # Creates the database if missing; with "fresh" drops it first.
 ensure_database() {

@@ -91,6 +91,27 @@ describe('queries per request do not grow with the data', () => {
 		expect(counts.page[0]).toBeLessThanOrEqual(16);
 	}, 60_000);
 
+	it("a page read asks for the membership once for the layout's and the page's loads; a write asks each time", async () => {
+		const { farm, members } = await makeFarmWithTeam();
+		const path = `/farms/${farm.id}/fields`;
+		const read = event(members.crew, path, { farmId: farm.id });
+		const memberships = () => sql.filter((q) => q.includes('"memberships"')).length;
+		await count(async () => {
+			const [a, b] = await Promise.all([requireMember(read, farm.id), requireMember({ ...read }, farm.id)]);
+			expect([a.role, b.role]).toEqual(['crew', 'crew']);
+		});
+		expect(memberships()).toBe(1);
+		const write = { ...read, request: new Request(read.url, { method: 'POST' }) };
+		await count(async () => {
+			await requireMember(write, farm.id);
+			await requireMember(write, farm.id);
+		});
+		expect(memberships()).toBe(2);
+		// Another request (its own locals) reads afresh.
+		await count(() => requireMember(event(members.crew, path, { farmId: farm.id }), farm.id));
+		expect(memberships()).toBe(1);
+	});
+
 	it('the fields page: the same count for 2 fields and 20', async () => {
 		const two = await farmWithFields(2);
 		const twenty = await farmWithFields(20);

@@ -36,6 +36,38 @@ export function requireUser(event: Event): SessionUser {
 
 export const FARM_NOT_FOUND = 'No farm here: it does not exist, was deleted, or you are not a member.';
 
+// A page read runs the layout's and the page's loads on one request; both ask for the same
+// membership, so a GET reads it once. Writes always read it afresh: an action may change it.
+const readsOfRequest = new WeakMap<object, Map<string, Promise<MembershipRow | undefined>>>();
+
+interface MembershipRow {
+	id: string;
+	name: string;
+	units: 'us' | 'metric';
+	time_zone: string;
+	viewers_see_member_emails: boolean;
+	viewers_see_equipment: boolean;
+	role: string;
+	field_scope: string[] | null;
+}
+
+function membershipRow(event: Event, farmId: string, userId: string): Promise<MembershipRow | undefined> {
+	// A Knex builder runs again on every await: settle it into one promise that can be shared.
+	const read = (): Promise<MembershipRow | undefined> =>
+		Promise.resolve(db()('memberships as m')
+			.join('farms as f', 'f.id', 'm.farm_id')
+			.where({ 'm.farm_id': farmId, 'm.user_id': userId })
+			.whereNull('f.deleted_at')
+			.first('f.id', 'f.name', 'f.units', 'f.time_zone', 'f.viewers_see_member_emails', 'f.viewers_see_equipment', 'm.role', 'm.field_scope'));
+	if (event.request.method !== 'GET') return read();
+	let reads = readsOfRequest.get(event.locals);
+	if (!reads) readsOfRequest.set(event.locals, (reads = new Map()));
+	const key = `${userId}:${farmId}`;
+	let pending = reads.get(key);
+	if (!pending) reads.set(key, (pending = read()));
+	return pending;
+}
+
 /**
  * The signed-in user's membership of the farm, refused unless the role holds the capability.
  * Another farm's id answers exactly like a missing one (404), so ids reveal nothing.
@@ -43,11 +75,7 @@ export const FARM_NOT_FOUND = 'No farm here: it does not exist, was deleted, or 
 export async function requireMember(event: Event, farmId: string | undefined, capability: Capability = 'read'): Promise<FarmAccess> {
 	const user = requireUser(event);
 	if (!isUuid(farmId)) error(404, { message: FARM_NOT_FOUND, code: 'not_found' });
-	const row = await db()('memberships as m')
-		.join('farms as f', 'f.id', 'm.farm_id')
-		.where({ 'm.farm_id': farmId, 'm.user_id': user.id })
-		.whereNull('f.deleted_at')
-		.first('f.id', 'f.name', 'f.units', 'f.time_zone', 'f.viewers_see_member_emails', 'f.viewers_see_equipment', 'm.role', 'm.field_scope');
+	const row = await membershipRow(event, farmId, user.id);
 	if (!row) error(404, { message: FARM_NOT_FOUND, code: 'not_found' });
 	const role = row.role as Role;
 	if (!can(role, capability)) {

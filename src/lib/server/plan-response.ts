@@ -19,7 +19,9 @@ export interface PlanStamp {
 
 // Bump when the shape of a plan answer changes, so clients do not keep an old body.
 const FORMAT = 1;
-const bodies = versionedMemo<string>(64);
+// Kept as UTF-8 bytes with their length, so a repeat answer is neither encoded again nor chunked.
+const bodies = versionedMemo<Uint8Array<ArrayBuffer>>(64);
+const utf8 = new TextEncoder();
 
 /** The stamp of the season's adopted plan (or the named variant); null when there is none to show. */
 export async function planStamp(access: FarmAccess, fieldId: string, season: number, variant?: string): Promise<PlanStamp | null> {
@@ -55,6 +57,6 @@ function matches(ifNoneMatch: string | null, etag: string): boolean {
 export async function planResponse(request: Request, etag: string, contentType: string, serialize: () => string | Promise<string>, headers: Record<string, string> = {}): Promise<Response> {
 	const common = { etag, 'cache-control': 'private, no-cache', ...headers };
 	if (matches(request.headers.get('if-none-match'), etag)) return new Response(null, { status: 304, headers: common });
-	const body = await bodies.get(etag, async () => serialize());
-	return new Response(body, { headers: { 'content-type': contentType, ...common } });
+	const body = await bodies.get(etag, async () => utf8.encode(await serialize()));
+	return new Response(body, { headers: { 'content-type': contentType, 'content-length': String(body.byteLength), ...common } });
 }
