@@ -1,6 +1,7 @@
 // Reads one uploaded boundary file from a multipart request, enforcing the size limit as the body
 // arrives, whether or not the client told us its length.
 import { AppError } from './errors';
+import { readBodyUpTo } from './read-body';
 import { IMPORT_LIMITS, ImportError, parseFieldFile, type ImportResult } from './field-import';
 
 // Room for the multipart framing and the form's other fields around the file itself.
@@ -32,35 +33,17 @@ export async function readUploadedShapes(request: Request): Promise<ImportResult
 
 /** The whole body, or a 413 as soon as it passes `limit` bytes (the rest is never buffered). */
 async function readAtMost(request: Request, limit: number): Promise<Uint8Array<ArrayBuffer>> {
-	if (!request.body) return new Uint8Array(0);
-	const reader = request.body.getReader();
-	const chunks: Uint8Array[] = [];
-	let size = 0;
+	let bytes: Uint8Array<ArrayBuffer> | null;
 	try {
-		for (;;) {
-			const { done, value } = await reader.read();
-			if (done) break;
-			size += value.byteLength;
-			if (size > limit) {
-				// Stop reading, but do not cancel: cancelling destroys the socket before the 413 goes out.
-				reader.releaseLock();
-				throw tooLarge(null);
-			}
-			chunks.push(value);
-		}
+		// Stop reading at the limit, but do not cancel: cancelling destroys the socket before the 413 goes out.
+		bytes = await readBodyUpTo(request.body, limit, 'release');
 	} catch (e) {
-		if (e instanceof AppError) throw e;
 		// The server's own body limit ends the stream early: that is the same refusal.
 		if (isTooLarge(e)) throw tooLarge(null);
 		throw new AppError(400, 'The upload was interrupted before it was complete; send the file again.', 'bad_upload');
 	}
-	const out = new Uint8Array(size);
-	let at = 0;
-	for (const c of chunks) {
-		out.set(c, at);
-		at += c.byteLength;
-	}
-	return out;
+	if (!bytes) throw tooLarge(null);
+	return bytes;
 }
 
 function isTooLarge(e: unknown): boolean {

@@ -3,6 +3,7 @@
 import { json, type RequestEvent } from '@sveltejs/kit';
 import { isUuid } from './access';
 import { AppError } from './errors';
+import { readBodyUpTo } from './read-body';
 import { isSeasonText } from './season';
 
 /** Deep enough for any GeoJSON or plan body we take (a MultiPolygon position sits at depth 6). */
@@ -143,29 +144,17 @@ export async function refuseBadRequest(event: RequestEvent): Promise<Response | 
  * not it declared its length; 'damaged' when it cannot be read as the form its type names.
  */
 async function readFormCopy(request: Request, limit: number): Promise<FormData | null | 'damaged'> {
-	if (Number(request.headers.get('content-length') ?? 0) > limit) return null;
-	const copy = request.clone();
-	if (!copy.body) return null;
-	const reader = copy.body.getReader();
-	const chunks: Uint8Array[] = [];
-	let size = 0;
+	if (Number(request.headers.get('content-length') ?? 0) > limit || !request.body) return null;
+	let bytes: Uint8Array<ArrayBuffer> | null;
 	try {
-		for (;;) {
-			const { done, value } = await reader.read();
-			if (done) break;
-			size += value.byteLength;
-			// Cancelling one copy leaves the route's copy of the stream untouched.
-			if (size > limit) {
-				void reader.cancel().catch(() => {});
-				return null;
-			}
-			chunks.push(value);
-		}
+		// Cancelling one copy leaves the route's copy of the stream untouched.
+		bytes = await readBodyUpTo(request.clone().body, limit, 'cancel');
 	} catch {
 		return null;
 	}
+	if (!bytes) return null;
 	try {
-		return await new Response(new Blob(chunks as BlobPart[]), { headers: { 'content-type': request.headers.get('content-type') ?? '' } }).formData();
+		return await new Response(bytes, { headers: { 'content-type': request.headers.get('content-type') ?? '' } }).formData();
 	} catch {
 		return 'damaged';
 	}
