@@ -3,6 +3,7 @@ import { sequence } from '@sveltejs/kit/hooks';
 import { randomUUID } from 'node:crypto';
 import { clearSessionCookie, lucia, setSessionCookie } from '$lib/server/auth';
 import { closeDb } from '$lib/server/db';
+import { backgroundSettled } from '$lib/server/background';
 import { applySecurityHeaders } from '$lib/server/security-headers';
 import { frameworkRefusal, fromDatabaseInputError } from '$lib/server/errors';
 import { refuseBadRequest } from '$lib/server/request-checks';
@@ -15,7 +16,8 @@ export const init: ServerInit = () => {
 
 // adapter-node emits this after a graceful stop; an idle pool would otherwise keep the process alive.
 process.on('sveltekit:shutdown', () => {
-	void closeDb();
+	// Mail already promised to someone (sign-up, reset) goes out before the pool closes.
+	void backgroundSettled().finally(() => closeDb());
 });
 
 const handleSession: Handle = async ({ event, resolve }) => {

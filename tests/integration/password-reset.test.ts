@@ -1,12 +1,33 @@
 import { describe, expect, it } from 'vitest';
 import { db } from '$lib/server/db';
 import { lucia } from '$lib/server/auth';
-import { checkPasswordReset, completePasswordReset, createPasswordReset } from '$lib/server/password-reset';
+import { checkPasswordReset, completePasswordReset, createPasswordReset, requestPasswordReset } from '$lib/server/password-reset';
+import { requestSignUp } from '$lib/server/sign-up';
 import { sha256Hex } from '$lib/server/tokens';
 import { attemptSignIn } from '$lib/server/sign-in';
 import { makeUser } from './helpers';
 
 describe('password reset', () => {
+	it('sends at most ten account mails an hour to one address, whoever asks', async () => {
+		const user = await makeUser('reset-flood', 'old password 1');
+		const sent: string[] = [];
+		const send = async (m: { to: string; subject: string }) => void sent.push(`${m.to}|${m.subject}`);
+		for (let i = 0; i < 9; i++) await requestPasswordReset(user.email.toUpperCase(), 'http://127.0.0.1', send);
+		// Sign-up mail to the same address counts against the same ten.
+		await requestSignUp({ name: 'Someone', email: user.email, password: 'a long password 1', redirectTo: null }, 'http://127.0.0.1', send);
+		expect(sent).toHaveLength(10);
+		await requestPasswordReset(user.email, 'http://127.0.0.1', send);
+		await requestSignUp({ name: 'Someone', email: user.email, password: 'a long password 1', redirectTo: null }, 'http://127.0.0.1', send);
+		expect(sent).toHaveLength(10);
+		// Another address is not held back.
+		const other = await makeUser('reset-flood-other', 'old password 1');
+		await requestPasswordReset(other.email, 'http://127.0.0.1', send);
+		expect(sent).toHaveLength(11);
+		expect(sent[10]).toBe(`${other.email}|${sent[0].split('|')[1]}`);
+		// Nine resets asked for, and the one the sign-up mail carries.
+		expect(await db()('password_resets').where({ user_id: user.id }).count({ n: '*' }).first()).toEqual({ n: 10 });
+	});
+
 	it('sets the new password, ends every session and works only once', async () => {
 		const user = await makeUser('reset', 'old password 1');
 		const s1 = await lucia.createSession(user.id, {});

@@ -1,6 +1,7 @@
 import { db } from './db';
 import { generateToken, sha256Hex } from './tokens';
-import { getUserFromEmail, setUserPassword } from './users';
+import { getUserFromEmail, normalizeEmail, setUserPassword } from './users';
+import { takeRequest } from './rate-limit';
 import { sendMail, type OutgoingMail } from './mail';
 
 export const RESET_TTL_MINUTES = 60;
@@ -33,6 +34,7 @@ export async function mailPasswordReset(user: { id: string; email: string; name:
  * nothing otherwise. The page runs it in the background, so its answer and timing are the same.
  */
 export async function requestPasswordReset(email: string, origin: string, send: SendMail = sendMail) {
+	if (!(await takeRequest('account-mail', normalizeEmail(email))).allowed) return;
 	const user = await getUserFromEmail(email);
 	if (user) await mailPasswordReset(user, origin, send);
 }

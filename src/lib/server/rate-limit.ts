@@ -96,8 +96,13 @@ export async function recordSignInSuccess(email: string) {
 
 /** Requests a signed-in user may make of each costly endpoint per window. */
 export const REQUEST_LIMITS = {
-	'layout-preview': { perWindow: 120, windowSeconds: 60, what: 'layout previews' }
+	'layout-preview': { perWindow: 120, windowSeconds: 60, what: 'layout previews' },
+	// Sign-up and reset mail to one address (keyed by the address): nobody can flood a mailbox
+	// through our forms. Over the limit the mail is left unsent and the page answers as always.
+	'account-mail': { perWindow: 10, windowSeconds: 3600, what: 'account e-mails to one address' }
 } as const;
+
+const WINDOW_WORDS: Record<number, string> = { 60: 'a minute', 3600: 'an hour' };
 
 /**
  * Counts one request for `key` (a user id) in the bucket's fixed window, atomically in one
@@ -120,6 +125,6 @@ export async function takeRequest(bucket: keyof typeof REQUEST_LIMITS, key: stri
 	return {
 		allowed: false,
 		retryAfterSeconds,
-		message: `Too many ${what}: at most ${perWindow} a minute. Wait ${retryAfterSeconds} second${retryAfterSeconds === 1 ? '' : 's'} and try again.`
+		message: `Too many ${what}: at most ${perWindow} ${WINDOW_WORDS[windowSeconds] ?? `in ${windowSeconds} s`}. Wait ${retryAfterSeconds} second${retryAfterSeconds === 1 ? '' : 's'} and try again.`
 	};
 }

@@ -2,6 +2,7 @@ import { db } from './db';
 import { generateToken, sha256Hex } from './tokens';
 import { hashPassword } from './password';
 import { getUserFromEmail, insertUser, normalizeEmail } from './users';
+import { takeRequest } from './rate-limit';
 import { createPasswordReset, RESET_TTL_MINUTES, type SendMail } from './password-reset';
 import { sendMail } from './mail';
 import { safeRedirectTarget } from './redirects';
@@ -28,6 +29,7 @@ export function signUpAnswer(email: string): string {
  */
 export async function requestSignUp(input: SignUpInput, origin: string, send: SendMail = sendMail, now = new Date()) {
 	const email = normalizeEmail(input.email);
+	if (!(await takeRequest('account-mail', email)).allowed) return;
 	const passwordHash = await hashPassword(input.password);
 	const existing = await getUserFromEmail(email);
 	if (existing) {
