@@ -2,11 +2,11 @@
 // change, adopted); the ETag comes from it, so a client holding this version gets 304 and a body
 // already serialized for it is sent again without reading the lanes. Every save makes a new version
 // and adopting touches updated_at, so a stamp never names two different bodies. Access is checked
-// before any of this runs, on every request, and the stamp query applies the same farm, field-scope
-// and deleted-row rules as getPlan.
+// before any of this runs, on every request, and the stamp is read through getPlan's own query, so it
+// follows the same farm, field-scope and deleted-row rules.
 import { createHash } from 'node:crypto';
-import { db } from './db';
-import { canSeeField, isUuid, type FarmAccess } from './access';
+import type { FarmAccess } from './access';
+import { seasonPlanQuery } from './plans';
 import { versionedMemo } from './versioned-memo';
 
 export interface PlanStamp {
@@ -25,13 +25,9 @@ const utf8 = new TextEncoder();
 
 /** The stamp of the season's adopted plan (or the named variant); null when there is none to show. */
 export async function planStamp(access: FarmAccess, fieldId: string, season: number, variant?: string): Promise<PlanStamp | null> {
-	if (!isUuid(fieldId) || !canSeeField(access, fieldId)) return null;
-	const q = db()('plans as p')
-		.join('fields as f', 'f.id', 'p.field_id')
-		.whereNull('f.deleted_at')
-		.whereNull('p.deleted_at')
-		.where({ 'p.farm_id': access.farm.id, 'p.field_id': fieldId, 'p.season': season });
-	const row = await (variant ? q.whereRaw('lower(p.variant) = lower(?)', [variant]) : q.where({ 'p.adopted': true })).first(
+	const q = seasonPlanQuery(access, fieldId, season, variant);
+	if (!q) return null;
+	const row = await q.first(
 		'p.id',
 		'p.version',
 		'p.adopted',

@@ -2,10 +2,9 @@ import type { Knex } from 'knex';
 import type { MultiPolygon, Polygon } from 'geojson';
 import { db } from './db';
 import { recordAudit } from './audit';
-import type { FarmAccess } from './access';
 import { AppError, invalid, notFound, versionConflict } from './errors';
 import { getBoundaryVersion, getField } from './fields';
-import { canSeeField, isUuid } from './access';
+import { canSeeField, isUuid, type FarmAccess } from './access';
 import { GeometryError, rotationMatrix, type Lane, type LaneSpec, type Layout, type LngLat } from '../geometry/index';
 import type { LaneAssignment } from '../plans/types';
 import type { NextSeasonInput, PlanSaveInput } from '../schemas/plan';
@@ -166,18 +165,28 @@ export async function listPlans(access: FarmAccess, fieldId: string): Promise<Pl
 }
 
 /**
- * The season's adopted plan, or the named variant, read as it was saved: the plan row and its
- * stored lanes (two queries, whatever the lane count), never laid out again.
+ * The query for a season's adopted plan (or the named variant) as `p`, with its field as `f`, under
+ * the farm, field-scope and deleted-row rules every plan read follows; null when this member may not
+ * see the field at all.
  */
-export async function getPlan(access: FarmAccess, fieldId: string, season: number, variant?: string): Promise<Plan> {
-	if (!isUuid(fieldId) || !canSeeField(access, fieldId)) throw notFound('field');
+export function seasonPlanQuery(access: FarmAccess, fieldId: string, season: number, variant?: string): Knex.QueryBuilder | null {
+	if (!isUuid(fieldId) || !canSeeField(access, fieldId)) return null;
 	const q = db()('plans as p')
 		.join('fields as f', 'f.id', 'p.field_id')
 		.whereNull('f.deleted_at')
 		.whereNull('p.deleted_at')
-		.where({ 'p.farm_id': access.farm.id, 'p.field_id': fieldId, 'p.season': season })
-		.select('p.*');
-	const row = await (variant ? q.whereRaw('lower(p.variant) = lower(?)', [variant]) : q.where({ 'p.adopted': true })).first();
+		.where({ 'p.farm_id': access.farm.id, 'p.field_id': fieldId, 'p.season': season });
+	return variant ? q.whereRaw('lower(p.variant) = lower(?)', [variant]) : q.where({ 'p.adopted': true });
+}
+
+/**
+ * The season's adopted plan, or the named variant, read as it was saved: the plan row and its
+ * stored lanes (two queries, whatever the lane count), never laid out again.
+ */
+export async function getPlan(access: FarmAccess, fieldId: string, season: number, variant?: string): Promise<Plan> {
+	const q = seasonPlanQuery(access, fieldId, season, variant);
+	if (!q) throw notFound('field');
+	const row = await q.first('p.*');
 	if (!row) {
 		await getField(access, fieldId); // a missing field says so, not "no plan"
 		throw notFound(variant ? `plan variant "${variant}" for ${season}` : `adopted plan for ${season}`);
