@@ -1,9 +1,9 @@
-import { error, fail, redirect } from '@sveltejs/kit';
+import { fail, redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
 import { requireMember, type FarmAccess } from '$lib/server/access';
 import { getBoundaryVersion, getField } from '$lib/server/fields';
 import { adoptVariant, deletePlanVariant, getPlan, listPlans, rotationFromPrevious, savePlan } from '$lib/server/plans';
-import { AppError } from '$lib/server/errors';
+import { AppError, pageError } from '$lib/server/errors';
 import { parseSeason } from '$lib/server/season';
 import { planSaveSchema } from '$lib/schemas/plan';
 import { zodFields } from '$lib/server/api';
@@ -12,11 +12,6 @@ import { loadSheet } from '$lib/server/sheet';
 import { versionedMemo } from '$lib/server/versioned-memo';
 import { lanesForTransport } from '$lib/plans/coordinates';
 import { createHash } from 'node:crypto';
-
-function pageError(e: unknown): never {
-	if (e instanceof AppError) error(e.status, { message: e.message, code: e.code });
-	throw e;
-}
 
 // Rotation and planter checks are geometry work that depends only on saved versions, so each is
 // remembered under the versions it was computed from (see versioned-memo.ts).
