@@ -9,7 +9,8 @@ export type AgronomyErrorCode =
 	| 'unknown_species'
 	| 'invalid_date'
 	| 'empty_list'
-	| 'missing_interval';
+	| 'missing_interval'
+	| 'invalid_time_zone';
 
 /**
  * Thrown when an agronomy helper is given an input it cannot compute with.

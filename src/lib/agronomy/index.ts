@@ -59,4 +59,4 @@ export {
 	type GrazingSpecies
 } from './grazing.js';
 export { creditedRowFraction, MAX_CREDITED_ROW_SPACING_IN } from './acreage.js';
-export { restrictionEnds, longestRestriction, type RestrictionInterval } from './intervals.js';
+export { restrictionEnds, restrictionEndsInZone, longestRestriction, type RestrictionInterval } from './intervals.js';

@@ -1,4 +1,5 @@
 import { addDays, addMilliseconds } from 'date-fns';
+import { TZDate } from '@date-fns/tz';
 import { AgronomyError } from './errors.js';
 import { requireDate, requireNonEmpty, requireNonNegative, requireWholeNonNegative } from './validate.js';
 
@@ -57,4 +58,34 @@ export function longestRestriction(
 		if (ends.getTime() > longest.ends.getTime()) longest = { ends, index: i };
 	}
 	return longest;
+}
+
+/**
+ * {@link restrictionEnds} with calendar days counted in a named time zone (the farm's), whatever
+ * zone the code runs in: the same local clock time in that zone, that many dates later. Hours stay
+ * elapsed time. Sources as for {@link restrictionEnds}.
+ *
+ * @example restrictionEndsInZone(new Date('2026-03-07T20:00:00Z'), { days: 1 }, 'America/Chicago')
+ *          // 2026-03-08T19:00:00Z: 14:00 local both days, one hour fewer across the clock change
+ */
+export function restrictionEndsInZone(applicationEnd: Date, interval: RestrictionInterval, timeZone: string): Date {
+	const end = requireDate('application end', applicationEnd);
+	requireTimeZone(timeZone);
+	const days = interval?.days === undefined ? undefined : requireWholeNonNegative('interval days', interval.days, 'days');
+	const hours = interval?.hours === undefined ? undefined : requireNonNegative('interval hours', interval.hours, 'h');
+	if (days === undefined && hours === undefined) {
+		throw new AgronomyError('missing_interval', 'interval', 'interval must give hours or days; got neither');
+	}
+	let result = new Date(end.getTime());
+	if (days !== undefined) result = new Date(addDays(new TZDate(result.getTime(), timeZone), days).getTime());
+	if (hours !== undefined) result = addMilliseconds(result, hours * MS_PER_HOUR);
+	return result;
+}
+
+function requireTimeZone(timeZone: string) {
+	try {
+		new Intl.DateTimeFormat('en-US', { timeZone });
+	} catch {
+		throw new AgronomyError('invalid_time_zone', 'timeZone', `time zone "${timeZone}" is not a known IANA zone`);
+	}
 }
