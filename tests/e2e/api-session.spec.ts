@@ -15,7 +15,7 @@ test.describe('JSON API: session and farms', () => {
 
 		const farms = await request.get('/api/farms');
 		expect(farms.status()).toBe(200);
-		expect(await farms.json()).toEqual([{ id: DEMO_FARM_ID, name: 'Larkspur Ridge Farm (demo)', role: 'advisor' }]);
+		expect(await farms.json()).toEqual([{ id: DEMO_FARM_ID, name: 'Larkspur Ridge Farm (demo)', role: 'advisor', timeZone: 'America/Chicago' }]);
 
 		expect((await request.delete('/api/session')).status()).toBe(204);
 		const after = await request.get('/api/farms');

@@ -17,7 +17,7 @@ describe('invitations', () => {
 		expect(await getInvitation(inv.token)).toMatchObject({ farmId: farm.id, farmName: farm.name, role: 'advisor', email, invitedByName: members.owner.name });
 		const newcomer = await accountFor(email);
 		await acceptInvitation(inv.token, newcomer.id);
-		expect(await listFarmsForUser(newcomer.id)).toEqual([{ id: farm.id, name: farm.name, role: 'advisor' }]);
+		expect(await listFarmsForUser(newcomer.id)).toEqual([{ id: farm.id, name: farm.name, role: 'advisor', timeZone: 'America/Chicago' }]);
 	});
 
 	it('lasts 7 days', async () => {
@@ -38,7 +38,7 @@ describe('invitations', () => {
 		const a = await accountFor(email);
 		await acceptInvitation(inv.token, a.id);
 		await expect(acceptInvitation(inv.token, a.id)).rejects.toThrow(/already been accepted/);
-		expect(await listFarmsForUser(a.id)).toEqual([{ id: farm.id, name: farm.name, role: 'crew' }]);
+		expect(await listFarmsForUser(a.id)).toEqual([{ id: farm.id, name: farm.name, role: 'crew', timeZone: 'America/Chicago' }]);
 	});
 
 	it('grants only the farm it was made for', async () => {
@@ -110,7 +110,7 @@ describe('invitations', () => {
 		// The refusal spent nothing: the addressee can still accept, whatever the case of their address.
 		const addressee = await createUser({ email: email.toUpperCase(), name: 'Addressee', password: 'invitee password' });
 		await acceptInvitation(inv.token, addressee.id);
-		expect(await listFarmsForUser(addressee.id)).toEqual([{ id: farm.id, name: farm.name, role: 'crew' }]);
+		expect(await listFarmsForUser(addressee.id)).toEqual([{ id: farm.id, name: farm.name, role: 'crew', timeZone: 'America/Chicago' }]);
 	});
 });
 
@@ -135,6 +135,6 @@ describe('who may invite whom', () => {
 		const inv = await createInvitation(farm.id, members.owner.id, email, 'owner');
 		const coOwner = await accountFor(email);
 		await acceptInvitation(inv.token, coOwner.id);
-		expect(await listFarmsForUser(coOwner.id)).toEqual([{ id: farm.id, name: farm.name, role: 'owner' }]);
+		expect(await listFarmsForUser(coOwner.id)).toEqual([{ id: farm.id, name: farm.name, role: 'owner', timeZone: 'America/Chicago' }]);
 	});
 });

@@ -6,6 +6,7 @@ export interface FarmSummary {
 	id: string;
 	name: string;
 	role: Role;
+	timeZone: string;
 }
 
 export async function createFarm(userId: string, name: string): Promise<FarmSummary> {
@@ -24,7 +25,7 @@ export async function listFarmsForUser(userId: string): Promise<FarmSummary[]> {
 		.where('m.user_id', userId)
 		.whereNull('f.deleted_at')
 		.orderBy('f.name')
-		.select('f.id', 'f.name', 'm.role');
+		.select('f.id', 'f.name', 'm.role', 'f.time_zone as timeZone');
 }
 
 export async function renameFarm(farmId: string, userId: string, name: string) {
