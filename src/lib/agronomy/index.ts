@@ -60,3 +60,4 @@ export {
 } from './grazing.js';
 export { creditedRowFraction, MAX_CREDITED_ROW_SPACING_IN } from './acreage.js';
 export { restrictionEnds, restrictionEndsInZone, longestRestriction, type RestrictionInterval } from './intervals.js';
+export { rowFeetPerThousandthAcre, plantsPerAcreFromStandCount } from './stand-count.js';
