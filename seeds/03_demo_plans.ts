@@ -9,6 +9,7 @@ import { closeDb } from '../src/lib/server/db';
 import type { FarmAccess } from '../src/lib/server/access';
 import { DEMO_FARM_ID, DEMO_PEOPLE } from './01_demo_people';
 import { at, DEMO_FIELDS, NORTH80_ORIGIN, PASTURE_ORIGIN, WIDE_ORIGIN } from './02_demo_fields';
+import { DEMO_VARIETIES, DEMO_VARIETY_ROWS } from './05_demo_catalog';
 
 export const DEMO_SEASONS = [2025, 2026, 2027] as const;
 
@@ -30,10 +31,20 @@ interface DemoPlan {
 
 type PlannedLane = { index: number; crop: string; patternIndex: number };
 
+/**
+ * A catalogue variety's name, checked against the lane's crop: the demo assigns seed only from
+ * the farm's catalogue, so a corn lane cannot be given a soybean line.
+ */
+function catalogue(key: keyof typeof DEMO_VARIETIES, crop: string): string {
+	const v = DEMO_VARIETY_ROWS.find((r) => r.id === DEMO_VARIETIES[key]);
+	if (!v || v.crop !== crop) throw new Error(`Demo seed: ${key} is not a ${crop} variety.`);
+	return v.name;
+}
+
 /** The seed each crop's lanes get in the demo; a lane is given the seed of its own crop. */
 const DEMO_SEED: Record<string, { variety: string; populationPerAcre: number }> = {
-	corn: { variety: 'hybrid A (105-day)', populationPerAcre: 34_000 },
-	soybean: { variety: 'soybean line 2.1', populationPerAcre: 140_000 }
+	corn: { variety: catalogue('cornHybridA', 'corn'), populationPerAcre: 34_000 },
+	soybean: { variety: catalogue('soybeanLineA', 'soybean'), populationPerAcre: 140_000 }
 };
 
 const seedByCrop = (lanes: PlannedLane[]): LaneAssignment[] =>
@@ -70,7 +81,7 @@ const plans: DemoPlan[] = [
 		offsetBySeason: { 2025: 0, 2026: 3.75, 2027: 7.5 },
 		// Every lane is corn; the 30-in lanes are the check strips.
 		assignments: (lanes) =>
-			lanes.map((l) => ({ laneIndex: l.index, variety: 'hybrid C (102-day)', populationPerAcre: 32_000, trialLabel: l.patternIndex === 3 ? '30-in check' : null, ...blank }))
+			lanes.map((l) => ({ laneIndex: l.index, variety: catalogue('cornHybridC', l.crop), populationPerAcre: 32_000, trialLabel: l.patternIndex === 3 ? '30-in check' : null, ...blank }))
 	},
 	{
 		fieldId: DEMO_FIELDS.pasture,
@@ -87,7 +98,8 @@ const plans: DemoPlan[] = [
 /** Hybrid comparison block: the first four corn lanes of the pasture field each get a hybrid. */
 function hybridBlock(lanes: PlannedLane[]): LaneAssignment[] {
 	const cornLanes = lanes.filter((l) => l.crop === 'corn').slice(0, 4);
-	return cornLanes.map((l, i) => ({ laneIndex: l.index, variety: `hybrid ${'ABDE'[i]}`, populationPerAcre: 34_000, trialLabel: 'hybrid comparison', ...blank }));
+	const hybrids = (['cornHybridA', 'cornHybridB', 'cornHybridD', 'cornHybridE'] as const).map((k) => catalogue(k, 'corn'));
+	return cornLanes.map((l, i) => ({ laneIndex: l.index, variety: hybrids[i], populationPerAcre: 34_000, trialLabel: 'hybrid comparison', ...blank }));
 }
 
 export async function seed(knex: Knex) {
