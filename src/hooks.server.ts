@@ -5,7 +5,7 @@ import { clearSessionCookie, lucia, setSessionCookie } from '$lib/server/auth';
 import { closeDb } from '$lib/server/db';
 import { backgroundSettled } from '$lib/server/background';
 import { applySecurityHeaders } from '$lib/server/security-headers';
-import { frameworkRefusal, fromDatabaseInputError } from '$lib/server/errors';
+import { DATABASE_UNAVAILABLE_MESSAGE, frameworkRefusal, fromDatabaseInputError, isDatabaseUnavailable } from '$lib/server/errors';
 import { refuseBadRequest } from '$lib/server/request-checks';
 import { geometryPool } from '$lib/server/geometry-pool';
 
@@ -48,11 +48,50 @@ const handleHeaders: Handle = async ({ event, resolve }) => {
 // Malformed requests stop here, before any route reads them.
 const handleRequestChecks: Handle = async ({ event, resolve }) => (await refuseBadRequest(event)) ?? resolve(event);
 
-export const handle = sequence(handleSession, handleHeaders, handleRequestChecks);
+// Requests that failed because the database is down answer 503 with a calm message (JSON for the
+// API, a page otherwise), and the server stays up: the pool reconnects once the database is back.
+const databaseDown = new WeakSet<object>();
+
+function unavailableResponse(event: Parameters<Handle>[0]['event']): Response {
+	const headers = { 'retry-after': '5', 'cache-control': 'no-store' };
+	const wantsJson = event.url.pathname.startsWith('/api/') || (event.request.headers.get('accept') ?? '').includes('application/json');
+	if (wantsJson) {
+		return new Response(JSON.stringify({ error: { code: 'database_unavailable', message: DATABASE_UNAVAILABLE_MESSAGE } }), {
+			status: 503,
+			headers: { ...headers, 'content-type': 'application/json' }
+		});
+	}
+	const page = `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1"><title>Database not answering · Stripwright</title></head><body><main><h1>Database not answering</h1><p>${DATABASE_UNAVAILABLE_MESSAGE}</p><p><a href="">Try again</a></p></main></body></html>`;
+	return new Response(page, { status: 503, headers: { ...headers, 'content-type': 'text/html; charset=utf-8' } });
+}
+
+const handleDatabaseDown: Handle = async ({ event, resolve }) => {
+	let response: Response;
+	try {
+		response = await resolve(event);
+	} catch (e) {
+		if (!isDatabaseUnavailable(e)) throw e;
+		console.error(`${event.request.method} ${event.url.pathname}: database unavailable (${(e as Error).message})`);
+		return unavailableResponse(event);
+	}
+	if (response.status === 500 && databaseDown.has(event.locals)) {
+		const headers = new Headers(response.headers);
+		headers.set('retry-after', '5');
+		return new Response(response.body, { status: 503, headers });
+	}
+	return response;
+};
+
+export const handle = sequence(handleHeaders, handleDatabaseDown, handleSession, handleRequestChecks);
 
 // Only unexpected errors and the framework's own 4xx arrive here; a library's message is never shown.
 export const handleError: HandleServerError = ({ error, event, status, message }) => {
 	if (status < 500) return frameworkRefusal(status, message, event.request.headers.get('content-type'));
+	if (isDatabaseUnavailable(error)) {
+		databaseDown.add(event.locals);
+		console.error(`${event.request.method} ${event.url.pathname}: database unavailable (${(error as Error).message})`);
+		return { message: DATABASE_UNAVAILABLE_MESSAGE, code: 'database_unavailable' };
+	}
 	const errorId = randomUUID();
 	console.error(`[${errorId}] ${event.request.method} ${event.url.pathname}`, error);
 	const refused = fromDatabaseInputError(error);

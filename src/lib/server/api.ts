@@ -2,7 +2,7 @@
 import { isHttpError, isRedirect, json, type RequestEvent } from '@sveltejs/kit';
 import { ZodError, type ZodType } from 'zod';
 import { randomUUID } from 'node:crypto';
-import { AppError, fromDatabaseInputError } from './errors';
+import { AppError, DATABASE_UNAVAILABLE_MESSAGE, fromDatabaseInputError, isDatabaseUnavailable } from './errors';
 import { findJsonProblem, refuseJsonProblem } from './request-checks';
 import { GeometryError } from '../geometry/index';
 
@@ -53,6 +53,10 @@ export function api<E extends RequestEvent>(handler: (event: E) => Response | Pr
 			if (e instanceof GeometryError) return apiError(400, e.code, e.message);
 			if (isRedirect(e)) throw e;
 			if (e instanceof ZodError) return apiError(400, 'invalid', 'Some values are not valid; see fields.', zodFields(e));
+			if (isDatabaseUnavailable(e)) {
+				console.error(`${event.request.method} ${event.url.pathname}: database unavailable (${(e as Error).message})`);
+				return apiError(503, 'database_unavailable', DATABASE_UNAVAILABLE_MESSAGE, undefined, { 'retry-after': '5' });
+			}
 			const refused = fromDatabaseInputError(e);
 			if (refused) {
 				// A value reached the database unchecked: answer 400, but leave a trace to add the check.

@@ -34,7 +34,8 @@ export function db(): Knex {
 	if (!instance) {
 		const url = process.env.DATABASE_URL;
 		if (!url) throw new Error('DATABASE_URL is not set: start the app with `npm start` or set it (see README.md).');
-		instance = refusePoolInsideTransactions(knexFactory({ client: 'pg', connection: url, pool: { min: 0, max: 10 } }));
+		// A stopped database must answer 503 within seconds, not hold requests for Knex's default minute.
+		instance = refusePoolInsideTransactions(knexFactory({ client: 'pg', connection: url, pool: { min: 0, max: 10 }, acquireConnectionTimeout: 5000 }));
 	}
 	return instance;
 }

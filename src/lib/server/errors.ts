@@ -83,3 +83,22 @@ export function frameworkRefusal(status: number, label: string, contentType: str
 			return { message: `The request could not be handled (${status} ${label}).`, code: 'bad_request' };
 	}
 }
+
+export const DATABASE_UNAVAILABLE_MESSAGE =
+	'The farm database is not answering right now, so nothing could be read or saved. Try again in a minute; nothing was half-saved.';
+
+// Node's socket errors and PostgreSQL's connection classes (08xxx; 57P01–57P03: the server is
+// shutting down or starting), plus the pool giving up waiting for a connection.
+const UNAVAILABLE_ERRNO = new Set(['ECONNREFUSED', 'ECONNRESET', 'ENOENT', 'EPIPE', 'ETIMEDOUT', 'EHOSTUNREACH', 'ENOTCONN']);
+const UNAVAILABLE_MESSAGES = /Connection terminated|connection timeout|timeout exceeded when trying to connect|Knex: Timeout acquiring a connection|Client has encountered a connection error|terminating connection/i;
+
+/** Whether an error means the database cannot be reached (a 503, not a bug). */
+export function isDatabaseUnavailable(e: unknown): boolean {
+	for (let cause: unknown = e, depth = 0; cause && depth < 4; cause = (cause as { cause?: unknown }).cause, depth++) {
+		const { code, name, message } = cause as { code?: unknown; name?: unknown; message?: unknown };
+		if (typeof code === 'string' && (UNAVAILABLE_ERRNO.has(code) || /^08[0-9A-Z]{3}$/.test(code) || /^57P0[123]$/.test(code))) return true;
+		if (name === 'KnexTimeoutError') return true;
+		if (typeof message === 'string' && UNAVAILABLE_MESSAGES.test(message)) return true;
+	}
+	return false;
+}
