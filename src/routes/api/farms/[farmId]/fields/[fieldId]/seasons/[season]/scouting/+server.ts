@@ -1,0 +1,31 @@
+import { json } from '@sveltejs/kit';
+import type { RequestHandler } from './$types';
+import { api, readJson, zodFields } from '$lib/server/api';
+import { requireMember } from '$lib/server/access';
+import { AppError } from '$lib/server/errors';
+import { photoFiles, readPhotoForm } from '$lib/server/photos';
+import { createScoutingNote, listScoutingNotes } from '$lib/server/scouting';
+import { parseSeason } from '$lib/server/season';
+import { scoutingNoteFromForm, scoutingNoteSchema } from '$lib/schemas/scouting';
+
+export const GET: RequestHandler = api(async (event) => {
+	const access = await requireMember(event, event.params.farmId, 'read');
+	const notes = await listScoutingNotes(access, event.params.fieldId, parseSeason(event.params.season));
+	return json({ notes });
+});
+
+/** JSON, or multipart/form-data with the same fields (standCount as plantsCounted, rowFeetCounted, rowSpacingIn) and up to four `photo` files. */
+export const POST: RequestHandler = api(async (event) => {
+	const access = await requireMember(event, event.params.farmId, 'scout');
+	const season = parseSeason(event.params.season);
+	const type = event.request.headers.get('content-type') ?? '';
+	if (!type.startsWith('multipart/form-data')) {
+		const input = await readJson(event, scoutingNoteSchema);
+		return json(await createScoutingNote(access, event.params.fieldId, season, input), { status: 201 });
+	}
+	const form = await readPhotoForm(event.request);
+	const parsed = scoutingNoteSchema.safeParse(scoutingNoteFromForm(form));
+	if (!parsed.success) throw new AppError(400, 'Some values are missing or not valid; see fields.', 'invalid', zodFields(parsed.error));
+	const photos = await Promise.all(photoFiles(form).map(async (f) => ({ name: f.name || null, bytes: new Uint8Array(await f.arrayBuffer()) })));
+	return json(await createScoutingNote(access, event.params.fieldId, season, parsed.data, photos), { status: 201 });
+});
