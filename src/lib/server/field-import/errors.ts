@@ -9,6 +9,7 @@ export type ImportErrorCode =
 	| 'unreadable'
 	| 'not_geojson'
 	| 'not_kml'
+	| 'not_taskdata'
 	| 'no_shapefile'
 	| 'no_polygons'
 	| 'invalid_geometry'

@@ -7,12 +7,13 @@ import { readGeoJson } from './geojson';
 import { readKml } from './kml';
 import { IMPORT_LIMITS, megabytes } from './limits';
 import { readShapefileZip } from './shapefile';
+import { findTaskDataEntry, readTaskDataXml, readTaskDataZip } from './taskdata';
 import { checkShapes, collectPolygons, requireLongitudeLatitude, type ImportedShape, type SourceFeature } from './shapes';
 import { describeContent, sniffContent, type ContentKind } from './sniff';
 import { baseName, isArchiveClutter, openZip } from './zip';
 
 
-export type ImportFormat = 'geojson' | 'kml' | 'shapefile';
+export type ImportFormat = 'geojson' | 'kml' | 'shapefile' | 'taskdata';
 
 export interface ImportResult {
 	format: ImportFormat;
@@ -20,14 +21,15 @@ export interface ImportResult {
 	warnings: string[];
 }
 
-const FORMAT_NAMES: Record<ImportFormat, string> = { geojson: 'GeoJSON', kml: 'KML', shapefile: 'shapefile' };
+const FORMAT_NAMES: Record<ImportFormat, string> = { geojson: 'GeoJSON', kml: 'KML', shapefile: 'shapefile', taskdata: 'ISO 11783-10 task data' };
 
 const EXTENSIONS: Record<string, { format: ImportFormat; expects: ContentKind[]; what: string }> = {
 	geojson: { format: 'geojson', expects: ['json'], what: 'a GeoJSON file' },
 	json: { format: 'geojson', expects: ['json'], what: 'a GeoJSON file' },
 	kml: { format: 'kml', expects: ['xml'], what: 'a KML file' },
 	kmz: { format: 'kml', expects: ['zip'], what: 'a zip archive (KMZ)' },
-	zip: { format: 'shapefile', expects: ['zip'], what: 'a zip archive' }
+	zip: { format: 'shapefile', expects: ['zip'], what: 'a zip archive' },
+	xml: { format: 'taskdata', expects: ['xml'], what: 'an XML document (ISO 11783-10 TASKDATA.XML)' }
 };
 
 function extensionOf(filename: string): string {
@@ -46,11 +48,15 @@ function readKmz(bytes: Uint8Array): { features: SourceFeature[]; warnings: stri
 	return { features: readKml(zip.read(main), '.kmz file'), warnings };
 }
 
-function read(format: ImportFormat, extension: string, bytes: Uint8Array): { features: SourceFeature[]; warnings: string[] } {
+function read(format: ImportFormat, extension: string, bytes: Uint8Array): { features: SourceFeature[]; warnings: string[]; format: ImportFormat } {
 	const fileLabel = `.${extension} file`;
-	if (format === 'geojson') return { features: readGeoJson(new TextDecoder().decode(bytes), fileLabel), warnings: [] };
-	if (format === 'kml') return extension === 'kmz' ? readKmz(bytes) : { features: readKml(bytes, fileLabel), warnings: [] };
-	return readShapefileZip(openZip(bytes, fileLabel), fileLabel);
+	if (format === 'geojson') return { features: readGeoJson(new TextDecoder().decode(bytes), fileLabel), warnings: [], format };
+	if (format === 'kml') return { ...(extension === 'kmz' ? readKmz(bytes) : { features: readKml(bytes, fileLabel), warnings: [] }), format };
+	if (format === 'taskdata') return { ...readTaskDataXml(new TextDecoder('utf-8').decode(bytes), fileLabel), format };
+	const zip = openZip(bytes, fileLabel);
+	// A zip holds either a shapefile or an ISO 11783-10 TASKDATA folder.
+	if (findTaskDataEntry(zip)) return { ...readTaskDataZip(zip, fileLabel), format: 'taskdata' };
+	return { ...readShapefileZip(zip, fileLabel), format };
 }
 
 function toResult(format: ImportFormat, shapes: ImportedShape[], warnings: string[]): ImportResult {
@@ -106,12 +112,12 @@ export function readFieldFile(filename: string, bytes: Uint8Array): ImportResult
 		throw new ImportError('wrong_content', `This .${extension} file is not ${kind.what}: it holds ${describeContent(content)}.`);
 	}
 	try {
-		const { features, warnings } = read(kind.format, extension, bytes);
-		const fileLabel = `${FORMAT_NAMES[kind.format]} file`;
+		const { features, warnings, format } = read(kind.format, extension, bytes);
+		const fileLabel = `${FORMAT_NAMES[format]} file`;
 		const collected = collectPolygons(features, fileLabel);
 		requireLongitudeLatitude(collected.candidates, fileLabel);
 		const shapes = checkShapes(collected.candidates);
-		return toResult(kind.format, shapes, [...warnings, ...collected.warnings]);
+		return toResult(format, shapes, [...warnings, ...collected.warnings]);
 	} catch (e) {
 		if (e instanceof ImportError) throw e;
 		// Libraries fail on damaged input in their own words; the caller only ever sees ImportError.
