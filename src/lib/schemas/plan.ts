@@ -17,6 +17,8 @@ export const laneSpecSchema = z.object({
 export const assignmentSchema = z.object({
 	laneIndex: z.number().int().min(0),
 	variety: z.string().trim().max(80).nullish().transform((v) => v || null),
+	/** A variety picked from the farm's seed catalogue; its name is what the lane keeps. */
+	varietyId: z.uuid({ message: 'Pick a variety from the seed catalogue, or type its name.' }).nullish(),
 	relativeMaturity: z.number().min(0).max(200).nullish().transform((v) => v ?? null),
 	populationPerAcre: z.number().int('Population is whole seeds per acre.').min(1000, 'Population under 1,000 seeds/ac looks like a typo.').max(2_000_000, 'Population over 2,000,000 seeds/ac looks like a typo.').nullish().transform((v) => v ?? null),
 	seedLot: z.string().trim().max(60).nullish().transform((v) => v || null),

@@ -11,6 +11,7 @@ import type { NextSeasonInput, PlanSaveInput } from '../schemas/plan';
 import { describeShift, shiftFeet } from '../plans/shift';
 import { rotationWarnings, type RotationWarning } from '../plans/rotation-flags';
 import type { Exclusion } from '../fields/shape';
+import { checkVarietyCrops } from './varieties';
 
 export interface PlanLane extends Lane {
 	assignment: LaneAssignment | null;
@@ -259,7 +260,9 @@ export async function savePlan(access: FarmAccess, fieldId: string, season: numb
 	} else {
 		lanes = await readLanes(db(), current.id);
 	}
-	const assignments = input.assignments.filter((a) => lanes.some((l) => l.index === a.laneIndex));
+	// A catalogue variety of another crop than its lane's is refused before anything is written.
+	const named = await checkVarietyCrops(access, lanes, input.assignments);
+	const assignments = named.filter((a) => lanes.some((l) => l.index === a.laneIndex));
 	const planLanes = withAssignments(lanes, assignments);
 
 	return db().transaction(async (trx) => {

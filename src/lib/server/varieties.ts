@@ -5,6 +5,8 @@ import { recordAudit } from './audit';
 import { isUuid, type FarmAccess } from './access';
 import { invalid, notFound, versionConflict } from './errors';
 import type { SeedLotInput, VarietyInput, VarietyPatch } from '../schemas/varieties';
+import type { LaneAssignment } from '../plans/types';
+import { checkAssignmentVarieties, type CatalogueVariety } from '../catalog/variety-check';
 
 export interface SeedLot {
 	id: string;
@@ -225,4 +227,30 @@ export async function deleteSeedLot(access: FarmAccess, varietyId: string, lotId
 		await trx('seed_lots').where({ id: lotId }).update({ deleted_at: trx.fn.now(), deleted_by: access.user.id });
 		await recordAudit(trx, { farmId: access.farm.id, userId: access.user.id, entity: 'seed_lot', entityId: lotId, action: 'delete', before: toLot(current) });
 	});
+}
+
+/** The catalogue as plans use it: id, crop, name, maturity and seeds per unit. */
+export async function catalogueForPlans(access: FarmAccess): Promise<CatalogueVariety[]> {
+	const rows = await live(db(), access).orderByRaw('lower(crop), lower(name)').select('id', 'crop', 'name', 'relative_maturity', 'seeds_per_unit');
+	return rows.map((r: Row) => ({ id: r.id, crop: r.crop, name: r.name, relativeMaturity: num(r.relative_maturity), seedsPerUnit: r.seeds_per_unit }));
+}
+
+/**
+ * Lane assignments checked against the seed catalogue: 400 with a field error on each lane given
+ * a catalogue variety of another crop. Returns the assignments as the plan keeps them: a variety
+ * picked by id carries its catalogue name, and the id itself is not stored.
+ */
+export async function checkVarietyCrops<A extends LaneAssignment & { varietyId?: string | null }>(
+	access: FarmAccess,
+	lanes: readonly { index: number; crop: string }[],
+	assignments: readonly A[]
+): Promise<LaneAssignment[]> {
+	const needsCatalogue = assignments.some((a) => a.variety || a.varietyId);
+	const catalogue = needsCatalogue ? await catalogueForPlans(access) : [];
+	const { varieties, fields } = checkAssignmentVarieties(lanes, assignments, catalogue);
+	const problems = Object.values(fields).flat();
+	if (problems.length) {
+		throw invalid(problems.length === 1 ? problems[0] : `${problems.length} lanes are given a variety the seed catalogue lists for another crop. ${problems[0]}`, fields);
+	}
+	return assignments.map(({ varietyId: _, ...a }, i) => ({ ...a, variety: varieties[i] }));
 }
