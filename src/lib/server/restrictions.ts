@@ -1,7 +1,7 @@
 // Restrictions on a season's lanes, read from the spraying (and other) records as stored.
 import type { Knex } from 'knex';
 import { db } from './db';
-import type { FarmAccess } from './access';
+import { canSeeField, isUuid, type FarmAccess } from './access';
 import { laneRestrictionsAt, type LaneApplication, type LaneRestriction } from '../records/restrictions';
 
 /** Every product line of the field's season records ended by `at`, per lane, with its recorded intervals. */
@@ -24,14 +24,17 @@ export async function laneApplications(q: Knex, farmId: string, fieldId: string,
 
 /**
  * Every lane of the season's adopted plan with when re-entry, harvest and grazing are allowed
- * again, as in force at `at`. The caller has checked the member may read the field.
- * Null when the season has no adopted plan.
+ * again, as in force at `at`. Null when the season has no adopted plan or the member may not see
+ * the field.
  */
 export async function seasonRestrictions(access: FarmAccess, fieldId: string, season: number, at: Date, q: Knex = db()): Promise<LaneRestriction[] | null> {
-	const plan = await q('plans')
-		.where({ farm_id: access.farm.id, field_id: fieldId, season, adopted: true })
-		.whereNull('deleted_at')
-		.first('id');
+	if (!isUuid(fieldId) || !canSeeField(access, fieldId)) return null;
+	const plan = await q('plans as p')
+		.join('fields as f', 'f.id', 'p.field_id')
+		.where({ 'p.farm_id': access.farm.id, 'p.field_id': fieldId, 'p.season': season, 'p.adopted': true })
+		.whereNull('p.deleted_at')
+		.whereNull('f.deleted_at')
+		.first('p.id');
 	if (!plan) return null;
 	const lanes: number[] = (await q('plan_lanes').where({ plan_id: plan.id }).orderBy('lane_index').select('lane_index')).map((r) => r.lane_index);
 	const applications = await laneApplications(q, access.farm.id, fieldId, season, at);
