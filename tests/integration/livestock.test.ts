@@ -154,3 +154,33 @@ describe('livestock groups', () => {
 		expect(Number((await db()('livestock_groups').where({ id: group.id }).first('average_weight_lb')).average_weight_lb)).toBe(160);
 	});
 });
+
+describe('demo livestock', () => {
+	it('a sheep flock and a hog group in the two shelters on Shelter Lanes’ pasture lanes, with a lamb crop and a predator loss', async () => {
+		const farmId = '5a1e0000-0000-4000-8000-00000000f001';
+		const groups = await db()('livestock_groups').where({ farm_id: farmId }).whereNull('deleted_at').orderBy('name');
+		expect(groups.map((g) => [g.name, g.species])).toEqual([
+			['Ewe flock', 'sheep'],
+			['Feeder pigs', 'hog']
+		]);
+		for (const g of groups) {
+			// The head count is the sum of the events on it.
+			const events = await db()('livestock_events').where({ group_id: g.id }).orderBy('occurred_at');
+			expect(events[events.length - 1].head_after).toBe(g.head);
+		}
+		const flockEvents = await db()('livestock_events').where({ group_id: groups[0].id }).orderBy('occurred_at');
+		expect(flockEvents.map((e) => [e.kind, e.cause])).toEqual([
+			['birth', null],
+			['loss', 'predator'],
+			['sale', null]
+		]);
+		const moves = await db()('grazing_moves as m').join('equipment as e', 'e.id', 'm.shelter_id').where({ 'm.farm_id': farmId }).select('m.group_id', 'm.lane_kind', 'e.kind as shelter_kind', 'e.name');
+		expect(moves.length).toBeGreaterThan(40);
+		expect(new Set(moves.map((m) => m.lane_kind))).toEqual(new Set(['pasture']));
+		expect(new Set(moves.map((m) => m.shelter_kind))).toEqual(new Set(['shelter']));
+		expect(new Set(moves.map((m) => `${m.group_id === groups[0].id ? 'ewes' : 'pigs'} in ${m.name}`))).toEqual(new Set(['ewes in Ewe shelter', 'pigs in Pig shelter']));
+		// No two moves of one shelter overlap in time.
+		const overlaps = await db().raw(`select count(*)::int as n from grazing_moves a join grazing_moves b on a.shelter_id = b.shelter_id and a.id < b.id and a.starts_at < b.ends_at and b.starts_at < a.ends_at where a.farm_id = ?`, [farmId]);
+		expect(overlaps.rows[0].n).toBe(0);
+	});
+});
