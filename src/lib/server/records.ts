@@ -261,7 +261,8 @@ function scalarColumns(input: Pick<RecordInput, 'type' | 'applicator' | 'applica
 		temp_f: input.weather?.tempF ?? null,
 		wind_mph: input.weather?.windMph ?? null,
 		wind_from: input.weather?.windFrom || null,
-		details: JSON.stringify(input.details),
+		// Only the facts given: an empty input is not kept as null.
+		details: JSON.stringify(Object.fromEntries(Object.entries(input.details).filter(([, v]) => v != null && v !== ''))),
 		notes: input.notes || null
 	};
 }
