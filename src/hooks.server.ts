@@ -8,10 +8,13 @@ import { applySecurityHeaders } from '$lib/server/security-headers';
 import { DATABASE_UNAVAILABLE_MESSAGE, frameworkRefusal, fromDatabaseInputError, isDatabaseUnavailable } from '$lib/server/errors';
 import { refuseBadRequest } from '$lib/server/request-checks';
 import { geometryPool } from '$lib/server/geometry-pool';
+import { startMailRetries } from '$lib/server/mail';
 
 // A geometry thread loads its code at start-up, so the first layout or field save does not wait for it.
 export const init: ServerInit = () => {
 	geometryPool();
+	// Mail the relay refused earlier goes out once it is back.
+	startMailRetries();
 };
 
 // adapter-node emits this after a graceful stop; an idle pool would otherwise keep the process alive.

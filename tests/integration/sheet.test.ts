@@ -93,7 +93,7 @@ describe('seeding sheet from the database', () => {
 		const { access, field, members } = await setup();
 		await createEquipment(access, splitPlanter);
 		const sent = await emailSheet(access, field.id, 2027, [members.crew.id], {});
-		expect(sent).toEqual([members.crew.email]);
+		expect(sent).toEqual({ to: [members.crew.email], queued: [] });
 		const res = await fetch(`http://127.0.0.1:${HTTP_PORT}/messages?to=${encodeURIComponent(members.crew.email)}`);
 		const [msg] = (await res.json()) as CapturedMessage[];
 		expect(msg.subject).toBe('Seeding sheet: Sheet field 2027');

@@ -17,7 +17,7 @@ export async function createPasswordReset(userId: string, now = new Date()): Pro
 	return token;
 }
 
-export type SendMail = (mail: OutgoingMail) => Promise<void>;
+export type SendMail = (mail: OutgoingMail) => Promise<unknown>;
 
 /** The reset mail for an existing account: one link, valid once, for an hour. */
 export async function mailPasswordReset(user: { id: string; email: string; name: string }, origin: string, send: SendMail = sendMail) {

@@ -17,14 +17,16 @@ export async function emailSheet(access: FarmAccess, fieldId: string, season: nu
 	const pdf = await renderSheetPdf(sheet, { timeZone: access.farm.timeZone });
 	const stops = sheet.checks.filter((c) => c.severity === 'stop').length;
 	const filename = `seeding-sheet-${sheet.fieldName.replace(/[^A-Za-z0-9]+/g, '-')}-${season}.pdf`;
+	const queued: string[] = [];
 	for (const m of chosen) {
-		await sendMail({
+		const outcome = await sendMail({
 			to: m.email,
 			subject: `Seeding sheet: ${sheet.fieldName} ${season}`,
 			text: `Hello ${m.name},\n\n${access.user.name} sent the seeding sheet for ${sheet.fieldName}, ${season} (${sheet.lanes.length} lanes, ${sheet.plantedAcres.toFixed(2)} ac planted).\n${stops ? `It lists ${stops} STOP problem${stops === 1 ? '' : 's'} to fix before planting.\n` : ''}\nThe PDF is attached. Check the row units against it before the first pass.\n`,
 			attachments: [{ filename, content: pdf, contentType: 'application/pdf' }]
 		});
+		if (!outcome.sent) queued.push(m.email);
 	}
 	await recordAudit(db(), { farmId: access.farm.id, userId: access.user.id, entity: 'sheet', entityId: fieldId, action: 'email', after: { season, to: chosen.map((m) => m.email) } });
-	return chosen.map((m) => m.email);
+	return { to: chosen.map((m) => m.email), queued };
 }

@@ -35,10 +35,11 @@ export const actions: Actions = {
 		const access = await requireMember(event, event.params.farmId, 'manageFarm');
 		const form = await superValidate(event.request, zod4(inviteSchema), { id: 'invite' });
 		if (!form.valid) return fail(400, { inviteForm: form });
+		let mailed: Awaited<ReturnType<typeof sendMail>>;
 		try {
 			const inv = await createInvitation(access.farm.id, access.user.id, form.data.email, form.data.role);
 			const link = `${appOrigin(event.url.origin)}/invitations/${inv.token}`;
-			await sendMail({
+			mailed = await sendMail({
 				to: form.data.email,
 				subject: `${access.user.name} invites you to ${access.farm.name} on Stripwright`,
 				text: `Hello,\n\n${access.user.name} invites you to join ${access.farm.name} on Stripwright as ${ROLE_LABELS[form.data.role]} (${ROLE_SUMMARIES[form.data.role].toLowerCase()}).\n\nOpen this link within ${INVITATION_TTL_DAYS} days to accept:\n\n${link}\n\nIf you do not know this farm, ignore this e-mail.\n`
@@ -46,6 +47,9 @@ export const actions: Actions = {
 		} catch (e) {
 			if (e instanceof InvitationError) return setError(form, 'email', e.message);
 			throw e;
+		}
+		if (!mailed.sent) {
+			return message(form, `Invitation saved, but the mail server did not take the e-mail to ${form.data.email} just now. It will be sent again automatically in about ${mailed.retryMinutes} minute${mailed.retryMinutes === 1 ? '' : 's'}; the link works for ${INVITATION_TTL_DAYS} days.`);
 		}
 		return message(form, `Invitation sent to ${form.data.email}. The link works for ${INVITATION_TTL_DAYS} days.`);
 	},

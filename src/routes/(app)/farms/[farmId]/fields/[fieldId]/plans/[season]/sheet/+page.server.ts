@@ -36,7 +36,9 @@ export const actions: Actions = {
 				planterId: event.url.searchParams.get('planter'),
 				variant: event.url.searchParams.get('variant') ?? undefined
 			});
-			return { emailed: `Sent to ${sent.join(', ')}.` };
+			const now = sent.to.filter((e) => !sent.queued.includes(e));
+			const later = sent.queued.length ? ` The mail server did not take the mail to ${sent.queued.join(', ')} just now; it will be sent again automatically.` : '';
+			return { emailed: `${now.length ? `Sent to ${now.join(', ')}.` : 'Not sent yet.'}${later}` };
 		} catch (e) {
 			if (e instanceof AppError) return fail(e.status, { emailError: e.message });
 			throw e;
