@@ -82,6 +82,19 @@ function startApp() {
 }
 startApp();
 
+// The background worker (yield-monitor files) runs beside the app and is started again if it stops.
+// More workers may run on other machines against the same database.
+let worker: ChildProcess;
+function startWorker() {
+	worker = spawn(process.execPath, ['--import', 'tsx', 'scripts/worker.ts'], { env, stdio: ['ignore', 'inherit', 'inherit'] });
+	worker.on('exit', (code, signal) => {
+		if (stopping) return;
+		console.error(`✗ The worker stopped (${signal ?? `exit code ${code}`}); starting it again in 5 s.`);
+		setTimeout(() => stopping || startWorker(), 5000);
+	});
+}
+startWorker();
+
 async function stop(code: number) {
 	if (stopping) return;
 	stopping = true;
@@ -89,10 +102,14 @@ async function stop(code: number) {
 	const running = app.exitCode === null && app.signalCode === null;
 	const exited = new Promise<void>((resolve) => (running ? app.once('exit', () => resolve()) : resolve()));
 	if (running) app.kill('SIGTERM');
+	const workerRunning = worker.exitCode === null && worker.signalCode === null;
+	const workerExited = new Promise<void>((resolve) => (workerRunning ? worker.once('exit', () => resolve()) : resolve()));
+	if (workerRunning) worker.kill('SIGTERM');
 	await Promise.all(closers.map((c) => c().catch(() => {})));
 	// Give the app a moment to finish requests in flight, then make sure it is gone.
-	await Promise.race([exited, new Promise((r) => setTimeout(r, 5000))]);
+	await Promise.race([Promise.all([exited, workerExited]), new Promise((r) => setTimeout(r, 5000))]);
 	if (app.exitCode === null && app.signalCode === null) app.kill('SIGKILL');
+	if (worker.exitCode === null && worker.signalCode === null) worker.kill('SIGKILL');
 	process.exit(code);
 }
 process.on('SIGINT', () => stop(0));
