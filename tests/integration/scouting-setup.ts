@@ -37,7 +37,7 @@ function fakeRequest(user: SessionUser | null, path = '/api/test', init: Request
 	return { locals: { user, session: null }, url, request: new Request(url, init) };
 }
 
-type Handler = (event: any) => Promise<Response>;
+type Handler = (event: any) => Response | Promise<Response>;
 
 /** Calls a route handler as SvelteKit would; answers status and parsed JSON (or raw bytes). */
 export async function call(

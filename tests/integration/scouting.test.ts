@@ -179,7 +179,7 @@ describe('scouting notes API', () => {
 		const params = { farmId: s.farm.id, fieldId: s.field.id, season: '2026' };
 		const created = await call(notesRoute.POST, s.members.advisor, params, { method: 'POST', json: { laneIndex: 0, positionFt: 50, observedAt: when } });
 		expect(created.body.lane.crop).toBe('corn');
-		const [sw, , , nw] = (s.field.boundary as { coordinates: [number, number][][] }).coordinates[0];
+		const [sw, , , nw] = (s.field.boundary as unknown as { coordinates: [number, number][][] }).coordinates[0];
 		const moved = await savePlan(s.access, s.field.id, 2026, {
 			guidance: { a: sw, b: nw },
 			pattern: [{ kind: 'crop', crop: 'soybean', rows: 8, rowSpacingIn: 30 }, { kind: 'crop', crop: 'corn', rows: 8, rowSpacingIn: 30 }],

@@ -107,7 +107,10 @@ interface PlanLaneRow {
 }
 
 async function adoptedPlan(q: Knex, access: FarmAccess, fieldId: string, season: number) {
-	const plan = await q('plans').where({ farm_id: access.farm.id, field_id: fieldId, season, adopted: true }).whereNull('deleted_at').first('id', 'version', 'guidance');
+	const plan: { id: string; version: number; guidance: { a: [number, number]; b: [number, number] } } | undefined = await q('plans')
+		.where({ farm_id: access.farm.id, field_id: fieldId, season, adopted: true })
+		.whereNull('deleted_at')
+		.first('id', 'version', 'guidance');
 	if (!plan) return null;
 	const lanes: PlanLaneRow[] = await q('plan_lanes').where({ plan_id: plan.id }).orderBy('lane_index').select('lane_index', 'kind', 'crop', 'variety', 'width_ft', 'rows', 'geometry');
 	return { ...plan, lanes };
