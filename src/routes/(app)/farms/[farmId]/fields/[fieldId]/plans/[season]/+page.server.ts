@@ -8,6 +8,7 @@ import { parseSeason } from '$lib/server/season';
 import { planSaveSchema } from '$lib/schemas/plan';
 import { zodFields } from '$lib/server/api';
 import { listEquipment } from '$lib/server/equipment';
+import { catalogueForPlans } from '$lib/server/varieties';
 import { loadSheet } from '$lib/server/sheet';
 import { versionedMemo } from '$lib/server/versioned-memo';
 import { lanesForTransport } from '$lib/plans/coordinates';
@@ -27,14 +28,15 @@ export const load: PageServerLoad = async (event) => {
 	try {
 		const season = parseSeason(event.params.season);
 		const variant = event.url.searchParams.get('variant') ?? undefined;
-		const [field, plan, plans, equipment] = await Promise.all([
+		const [field, plan, plans, equipment, catalogue] = await Promise.all([
 			getField(access, event.params.fieldId),
 			getPlan(access, event.params.fieldId, season, variant).catch((e) => {
 				if (e instanceof AppError && e.status === 404 && !variant) return null;
 				throw e;
 			}),
 			listPlans(access, event.params.fieldId),
-			listEquipment(access)
+			listEquipment(access),
+			catalogueForPlans(access)
 		]);
 		const wanted = plan?.boundaryVersion ?? field.boundaryVersion;
 		// The field row carries its current outline; only a plan laid out on an older one reads that version.
@@ -56,6 +58,8 @@ export const load: PageServerLoad = async (event) => {
 			// The page keeps assignments once (not again on every lane) and outlines to 1 cm.
 			plan: plan && { ...plan, lanes: lanesForTransport(plan.lanes.map(({ assignment: _, ...lane }) => lane)) },
 			plans,
+			// The seed catalogue the lane assignments pick from.
+			catalogue,
 			outline: { version: outline.version, boundary: outline.boundary, exclusions: outline.exclusions },
 			rotation
 		};
