@@ -25,6 +25,9 @@ export interface FarmSeason {
 	totals: { byCrop: Record<string, CropAcres>; plantedAcres: number };
 }
 
+// eslint-disable-next-line @typescript-eslint/no-explicit-any
+type Row = any;
+
 interface VisibleField {
 	id: string;
 	name: string;
@@ -68,7 +71,7 @@ async function laneGroups(access: FarmAccess, planIds: string[], q: Knex = db())
 		.select('p.field_id', 'l.crop', 'l.kind')
 		.sum({ acres: 'l.acres' })
 		.count({ lanes: '*' });
-	return rows.map((r) => ({ fieldId: r.field_id as string, crop: r.crop as string, kind: r.kind as LaneKind, acres: Number(r.acres), lanes: Number(r.lanes) }));
+	return (rows as Row[]).map((r) => ({ fieldId: r.field_id as string, crop: r.crop as string, kind: r.kind as LaneKind, acres: Number(r.acres), lanes: Number(r.lanes) }));
 }
 
 function seasonFromParts(fields: VisibleField[], plans: AdoptedPlanRow[], groups: LaneGroup[]): FarmSeason {
@@ -265,4 +268,12 @@ export async function laneRecords(access: FarmAccess, fieldId: string, season: n
 		endedAt: new Date(o.ended_at),
 		products: products.filter((p) => p.operation_id === o.id).map((p) => p.product_name)
 	}));
+}
+
+/** The visible fields with their current outlines, for the farm map. */
+export async function fieldOutlines(access: FarmAccess): Promise<{ id: string; name: string; acres: number; boundary: Polygon | MultiPolygon }[]> {
+	if (access.fieldScope !== null && access.fieldScope.length === 0) return [];
+	const query = db()('fields').where({ farm_id: access.farm.id }).whereNull('deleted_at').orderByRaw('lower(name), id').select('id', 'name', 'acres', 'boundary');
+	if (access.fieldScope !== null) query.whereIn('id', access.fieldScope);
+	return (await query).map((r) => ({ id: r.id, name: r.name, acres: Number(r.acres), boundary: r.boundary }));
 }
