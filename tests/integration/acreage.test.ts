@@ -12,7 +12,9 @@ import { logOperation, reportFarm, routeEvent } from './report-setup';
 
 type Row = { fieldId: string; fieldName: string; crop: string; plantedAcres: number; creditedAcres: number; practice: string; plantingDate: string | null; farmNumber: string | null; tractNumber: string | null; fieldNumber: string | null };
 
-const get = (route: typeof acreageRoute, user: SessionUser | null, farmId: string, query = '?season=2027') =>
+type Handler = (event: ReturnType<typeof routeEvent>) => Response | Promise<Response>;
+
+const get = (route: Handler, user: SessionUser | null, farmId: string, query = '?season=2027') =>
 	route(routeEvent(user, `/api/farms/${farmId}/reports/acreage${query}`, { farmId }));
 
 async function laneSums(planId: string) {

@@ -19,7 +19,7 @@ import { makeFarmWithTeam } from './helpers';
 import { reportFarm, routeEvent } from './report-setup';
 import { rectangle } from '../fixtures/rectangle';
 
-type Route = typeof geojsonRoute;
+type Route = (event: ReturnType<typeof routeEvent>) => Response | Promise<Response>;
 const get = (route: Route, user: SessionUser | null, farmId: string, fieldId: string, query = '?season=2027') =>
 	route(routeEvent(user, `/api/farms/${farmId}/fields/${fieldId}/x${query}`, { farmId, fieldId }));
 
