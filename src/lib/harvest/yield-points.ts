@@ -21,7 +21,9 @@ import { GRAIN_STANDARDS, standardMoistureWeight } from '../agronomy/index.js';
 import { isGrainCrop, HARVEST_MOISTURE } from './entry.js';
 import type { YieldMapping } from './yield-columns.js';
 
-export const CLEANING = { minSpeedMph: 0.5, passStartSeconds: 8, passGapSeconds: 5, passTurnDegrees: 90, overlapShareOfSwath: 0.5 } as const;
+import { CLEANING } from './cleaning-rules.js';
+
+export { CLEANING };
 
 export const DROP_REASONS = ['unreadable', 'stopped', 'passStart', 'overlap', 'noFlow'] as const;
 export type DropReason = (typeof DROP_REASONS)[number];

@@ -122,10 +122,10 @@ export async function farmHarvestIndex(access: FarmAccess): Promise<FarmHarvestR
 		return r;
 	};
 	for (const s of sums) {
-		const r = row(s.field_id, s.season);
+		const r = row(String(s.field_id), Number(s.season));
 		r.entries += Number(s.entries);
-		r.byCrop.push({ crop: s.crop, bushels: Number(s.bushels), acres: Number(s.acres), bushelsPerAcre: Number(s.acres) > 0 ? Number(s.bushels) / Number(s.acres) : 0 });
+		r.byCrop.push({ crop: String(s.crop), bushels: Number(s.bushels), acres: Number(s.acres), bushelsPerAcre: Number(s.acres) > 0 ? Number(s.bushels) / Number(s.acres) : 0 });
 	}
-	for (const i of imports) row(i.field_id, i.season).imports = Number(i.n);
+	for (const i of imports) row(String(i.field_id), Number(i.season)).imports = Number(i.n);
 	return [...rows.values()].sort((a, b) => b.season - a.season || a.fieldName.localeCompare(b.fieldName));
 }
