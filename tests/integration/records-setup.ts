@@ -53,7 +53,7 @@ export function event(user: SessionUser | null, path = '/api/test', init: Reques
 }
 
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
-type Handler = (event: any) => Promise<Response>;
+type Handler = (event: any) => Response | Promise<Response>;
 
 /** Calls a route handler as SvelteKit would; answers status, parsed JSON (or text) and headers. */
 export async function call(handler: Handler, user: SessionUser | null, params: Record<string, string>, opts: { method?: string; json?: unknown; query?: string } = {}) {

@@ -7,6 +7,9 @@ import { AppError, invalid } from './errors';
 import type { FarmAccess } from './access';
 import { laneAcresCovered, productTotal, rateWarning, type LanePart } from '../records/amounts';
 import { rupMissing } from '../records/restricted-use';
+import { laneListText } from '../records/format';
+
+export { laneListText };
 
 /** Completed work may be dated this far ahead of the server clock (clocks of phones drift). */
 export const FUTURE_TOLERANCE_MS = 10 * 60_000;
@@ -173,19 +176,6 @@ export function retotal(products: ProductCopy[], acres: number): ProductCopy[] {
 export function locationText(field: { name: string; farmNumber: string | null; tractNumber: string | null; fieldNumber: string | null }, lanes: Pick<LaneCopy, 'laneIndex'>[]): string {
 	const numbers = [field.farmNumber && `farm ${field.farmNumber}`, field.tractNumber && `tract ${field.tractNumber}`, field.fieldNumber && `field ${field.fieldNumber}`].filter(Boolean);
 	return `${field.name}${numbers.length ? ` (${numbers.join(', ')})` : ''}, ${laneListText(lanes.map((l) => l.laneIndex))}`;
-}
-
-/** Lane indexes as people read them: "lanes 1–4, 9". */
-export function laneListText(indexes: number[]): string {
-	const sorted = [...new Set(indexes)].sort((a, b) => a - b);
-	const runs: string[] = [];
-	for (let i = 0; i < sorted.length; ) {
-		let j = i;
-		while (j + 1 < sorted.length && sorted[j + 1] === sorted[j] + 1) j++;
-		runs.push(j > i ? `${sorted[i] + 1}–${sorted[j] + 1}` : `${sorted[i] + 1}`);
-		i = j + 1;
-	}
-	return `${sorted.length === 1 ? 'lane' : 'lanes'} ${runs.join(', ')}`;
 }
 
 /** Refuses a restricted-use record that lacks any element the federal rule requires. */
