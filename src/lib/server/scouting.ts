@@ -4,7 +4,7 @@ import type { Knex } from 'knex';
 import { TZDate } from '@date-fns/tz';
 import { db } from './db';
 import { recordAudit } from './audit';
-import { canSeeField, type FarmAccess } from './access';
+import { canSeeField, isUuid, type FarmAccess } from './access';
 import { AppError, invalid, notFound, versionConflict } from './errors';
 import { getField } from './fields';
 import { discardPhotos, photosOf, preparePhoto, recordPhotos, storePhotos, type PhotoSummary, type StoredPhoto } from './photos';
@@ -89,7 +89,7 @@ export async function listScoutingNotes(access: FarmAccess, fieldId: string, sea
 }
 
 export async function getScoutingNote(access: FarmAccess, fieldId: string, season: number, noteId: string, q: Knex = db()): Promise<ScoutingNote> {
-	if (!canSeeField(access, fieldId)) throw notFound('scouting note');
+	if (!canSeeField(access, fieldId) || !isUuid(noteId)) throw notFound('scouting note');
 	const row = await q('scouting_notes').where({ id: noteId, farm_id: access.farm.id, field_id: fieldId, season }).whereNull('deleted_at').first();
 	if (!row) throw notFound('scouting note');
 	const photos = await photosOf(q, access.farm.id, 'scouting_note', [row.id]);
@@ -251,7 +251,7 @@ function requireMayChange(access: FarmAccess, row: Row) {
 }
 
 async function lockedNote(trx: Knex.Transaction, access: FarmAccess, fieldId: string, season: number, noteId: string) {
-	if (!canSeeField(access, fieldId)) throw notFound('scouting note');
+	if (!canSeeField(access, fieldId) || !isUuid(noteId)) throw notFound('scouting note');
 	const row = await trx('scouting_notes').where({ id: noteId, farm_id: access.farm.id, field_id: fieldId, season }).whereNull('deleted_at').forUpdate().first();
 	if (!row) throw notFound('scouting note');
 	requireMayChange(access, row);
