@@ -9,7 +9,8 @@ import { GET as seasonJson } from '../../src/routes/api/farms/[farmId]/seasons/[
 import { GET as seasonLanes } from '../../src/routes/api/farms/[farmId]/seasons/[season]/lanes.geojson/+server';
 import { GET as seasonSummaryJson } from '../../src/routes/api/farms/[farmId]/seasons/[season]/summary/+server';
 import { GET as laneRecordsJson } from '../../src/routes/api/farms/[farmId]/seasons/[season]/lane-records/+server';
-import { fakeEvent, makeFarmWithTeam, makeUser } from './helpers';
+import { load as farmHome } from '../../src/routes/(app)/farms/[farmId]/+page.server';
+import { fakeEvent, makeFarmWithTeam, makeUser, thrown } from './helpers';
 import { rectangle } from '../fixtures/rectangle';
 
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
@@ -47,7 +48,8 @@ const params = (farmId: string, season: number | string) => ({ farmId, season: S
 /** Acres and lane counts per crop straight from the stored lanes of the adopted plans. */
 async function storedSums(planIds: string[]) {
 	const rows = await db()('plan_lanes').whereIn('plan_id', planIds).groupBy('crop').select('crop').sum({ acres: 'acres' }).count({ lanes: '*' });
-	return Object.fromEntries(rows.map((r) => [r.crop, { acres: Number(r.acres), lanes: Number(r.lanes) }]));
+	// eslint-disable-next-line @typescript-eslint/no-explicit-any
+	return Object.fromEntries((rows as any[]).map((r) => [r.crop, { acres: Number(r.acres), lanes: Number(r.lanes) }]));
 }
 
 describe('GET /api/farms/:farmId/seasons/:season', () => {
@@ -198,5 +200,35 @@ describe('season summary', () => {
 		const bad = await laneRecordsJson(event(s.members.crew, `${base(s.farm.id, 2026)}/lane-records`, params(s.farm.id, 2026), '?fieldId=nope&laneIndex=-1'));
 		expect(bad.status).toBe(400);
 		expect(Object.keys((await bad.json()).error.fields).sort()).toEqual(['fieldId', 'laneIndex']);
+	});
+});
+
+describe('the farm home page (season map)', () => {
+	// eslint-disable-next-line @typescript-eslint/no-explicit-any
+	const home = (user: SessionUser, farmId: string, search = '') => farmHome(event(user, `/farms/${farmId}`, { farmId }, search)) as Promise<any>;
+
+	it('shows a viewer only the granted fields, on the map and in the totals', async () => {
+		const s = await setup();
+		await db()('memberships').where({ farm_id: s.farm.id, user_id: s.members.viewer.id }).update({ field_scope: [s.a.id] });
+		const page = await home(s.members.viewer, s.farm.id, '?season=2026');
+		expect(page.season).toBe(2026);
+		expect(page.outlines.map((f: { name: string }) => f.name)).toEqual(['North strips']);
+		expect(page.seasonData.fields.map((f: { fieldId: string }) => f.fieldId)).toEqual([s.a.id]);
+		expect(page.summary.fieldsShown).toBe(1);
+		expect(page.seasons).toEqual([2025, 2026]);
+		const owner = await home(s.members.owner, s.farm.id, '?season=2026');
+		expect(owner.outlines).toHaveLength(3);
+	});
+
+	it('opens on a season from the address, says so when it is not a season, and refuses other farms', async () => {
+		const s = await setup();
+		const bad = await home(s.members.owner, s.farm.id, '?season=20x6');
+		expect(bad.seasonProblem).toBe(`"20x6" is not a season this farm can plan (a year from 1900 to 2200); showing ${bad.season}.`);
+		expect(bad.seasons).toEqual([2025, 2026]);
+		const far = await home(s.members.owner, s.farm.id, '?season=2200');
+		expect(far.seasonData.fields.every((f: { status: string }) => f.status === 'no_plan')).toBe(true);
+		expect(far.summary.rotation).toEqual([]);
+		const other = await makeFarmWithTeam();
+		expect((await thrown(() => home(other.members.owner, s.farm.id))).status).toBe(404);
 	});
 });
