@@ -251,3 +251,25 @@ describe('season records', () => {
 		expect(lines[1]).toContain(`"'=HYPERLINK(""x"")"`);
 	});
 });
+
+describe('demo record book', () => {
+	it('holds two past seasons and the fall work for the coming one, with a restricted-use record and intervals', async () => {
+		const farmId = '5a1e0000-0000-4000-8000-00000000f001';
+		const rows = await db()('operations').where({ farm_id: farmId }).whereNull('deleted_at').select('season', 'type', 'field_id', 'rup_completed_at', 'ended_at', 'acres');
+		const seasons = [...new Set(rows.map((r) => r.season))].sort();
+		expect(seasons).toEqual([2025, 2026, 2027]);
+		for (const season of [2025, 2026]) {
+			const types = new Set(rows.filter((r) => r.season === season).map((r) => r.type));
+			for (const t of ['planting', 'fertilizer', 'spraying', 'cover-seeding', 'tillage', 'mowing']) expect(types.has(t), `${season} ${t}`).toBe(true);
+			expect(new Set(rows.filter((r) => r.season === season).map((r) => r.field_id)).size).toBe(3);
+		}
+		const rup = rows.filter((r) => r.rup_completed_at);
+		expect(rup.length).toBeGreaterThanOrEqual(4);
+		// One restricted-use record was written down late on purpose (20 days after the work).
+		const late = rup.filter((r) => new Date(r.rup_completed_at).getTime() - new Date(r.ended_at).getTime() > 14 * 86_400_000);
+		expect(late).toHaveLength(1);
+		const intervals = await db()('operation_products').where({ farm_id: farmId }).whereNotNull('rei_hours').count('* as n').first();
+		expect(Number(intervals?.n)).toBeGreaterThan(5);
+		expect(rows.every((r) => r.acres > 0)).toBe(true);
+	});
+});

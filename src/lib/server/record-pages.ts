@@ -2,7 +2,8 @@
 // farm's products and the seeding sheet's groups. One place, so every page asks the same way.
 import type { FarmAccess } from './access';
 import { AppError } from './errors';
-import { getField } from './fields';
+import { getField, listFields } from './fields';
+import { db } from './db';
 import { getPlan, type Plan } from './plans';
 import { listRecords } from './records';
 import { seasonRestrictions } from './restrictions';
@@ -67,5 +68,28 @@ export async function seasonView(access: FarmAccess, fieldId: string, season: nu
 		records,
 		restrictions: restrictions ?? [],
 		products
+	};
+}
+
+/** The farm's record book at a glance: each field's seasons with plans and records, and the latest records. */
+export async function farmRecordBook(access: FarmAccess) {
+	const fields = await listFields(access);
+	const ids = fields.map((f) => f.id);
+	if (!ids.length) return { fields: [], seasons: [], cells: {}, recent: [] };
+	const [plans, counts, recentRows] = await Promise.all([
+		db()('plans').where({ farm_id: access.farm.id, adopted: true }).whereIn('field_id', ids).whereNull('deleted_at').select('field_id', 'season'),
+		db()('operations').where({ farm_id: access.farm.id }).whereIn('field_id', ids).whereNull('deleted_at').groupBy('field_id', 'season').select('field_id', 'season').count('* as n'),
+		db()('operations').where({ farm_id: access.farm.id }).whereIn('field_id', ids).whereNull('deleted_at').orderBy('ended_at', 'desc').limit(10).select('id', 'field_id', 'season', 'type', 'ended_at', 'acres')
+	]);
+	const cells: Record<string, { plan: boolean; records: number }> = {};
+	for (const p of plans) cells[`${p.field_id}|${p.season}`] = { plan: true, records: 0 };
+	for (const c of counts) (cells[`${c.field_id}|${c.season}`] ??= { plan: false, records: 0 }).records = Number(c.n);
+	const seasons = [...new Set([...plans.map((p) => p.season as number), ...counts.map((c) => c.season as number)])].sort((a, b) => b - a);
+	const names = new Map(fields.map((f) => [f.id, f.name]));
+	return {
+		fields: fields.map((f) => ({ id: f.id, name: f.name })),
+		seasons,
+		cells,
+		recent: recentRows.map((r) => ({ id: r.id, fieldId: r.field_id, fieldName: names.get(r.field_id) ?? '', season: r.season, type: r.type, endedAt: new Date(r.ended_at).toISOString(), acres: Number(r.acres) }))
 	};
 }
