@@ -1,21 +1,25 @@
-// Adds up vitest's and Playwright's JSON reports into one closing line: "N passed, N failed".
+// Adds up the vitest runs' and Playwright's JSON reports into one closing line: "N passed, N failed".
 import { readFileSync, existsSync } from 'node:fs';
 
 let passed = 0;
 let failed = 0;
 let skipped = 0;
-const [vitestPath, playwrightPath] = process.argv.slice(2);
+// Every argument but the last is a vitest report; the last is Playwright's.
+const paths = process.argv.slice(2);
+const playwrightPath = paths.pop();
 
-if (existsSync(vitestPath)) {
-	const v = JSON.parse(readFileSync(vitestPath, 'utf8'));
-	passed += v.numPassedTests ?? 0;
-	failed += (v.numFailedTests ?? 0) + (v.numFailedTestSuites ?? 0 ? 0 : 0);
-	skipped += (v.numPendingTests ?? 0) + (v.numTodoTests ?? 0);
-	// A file that failed to load counts as one failure: its tests never ran.
-	for (const f of v.testResults ?? []) if (f.status === 'failed' && (f.assertionResults ?? []).length === 0) failed++;
-} else {
-	console.error(`missing ${vitestPath}: vitest did not report`);
-	failed++;
+for (const vitestPath of paths) {
+	if (existsSync(vitestPath)) {
+		const v = JSON.parse(readFileSync(vitestPath, 'utf8'));
+		passed += v.numPassedTests ?? 0;
+		failed += v.numFailedTests ?? 0;
+		skipped += (v.numPendingTests ?? 0) + (v.numTodoTests ?? 0);
+		// A file that failed to load counts as one failure: its tests never ran.
+		for (const f of v.testResults ?? []) if (f.status === 'failed' && (f.assertionResults ?? []).length === 0) failed++;
+	} else {
+		console.error(`missing ${vitestPath}: vitest did not report`);
+		failed++;
+	}
 }
 
 if (existsSync(playwrightPath)) {
