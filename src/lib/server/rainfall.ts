@@ -4,7 +4,7 @@
 import type { Knex } from 'knex';
 import { db } from './db';
 import { recordAudit } from './audit';
-import type { FarmAccess } from './access';
+import { isUuid, type FarmAccess } from './access';
 import { AppError, invalid, notFound, versionConflict } from './errors';
 import { calendarDayIn, gaugeTotals, PLAUSIBLE_DAILY_MAX_IN, weeklyTotals, type GaugeTotal, type WeekBucket } from '../rainfall/totals';
 import type { GaugeInput, GaugePatch, ReadingInput, ReadingPatch } from '../schemas/rainfall';
@@ -69,6 +69,7 @@ export async function listGauges(access: FarmAccess, q: Knex = db()): Promise<Ra
 }
 
 async function getGauge(q: Knex, access: FarmAccess, gaugeId: string): Promise<RainGauge> {
+	if (!isUuid(gaugeId)) throw notFound('rain gauge');
 	const row = await gaugesQuery(q, access).where({ 'g.id': gaugeId }).first('g.*', 'f.name as field_name');
 	if (!row) throw notFound('rain gauge');
 	return toGauge(row);
@@ -116,7 +117,8 @@ export async function updateGauge(access: FarmAccess, gaugeId: string, patch: Ga
 	await checkField(db(), access, patch.fieldId);
 	try {
 		return await db().transaction(async (trx) => {
-			const row = await trx('rain_gauges').where({ id: gaugeId, farm_id: access.farm.id }).whereNull('deleted_at').forUpdate().first();
+			if (!isUuid(gaugeId)) throw notFound('rain gauge');
+		const row = await trx('rain_gauges').where({ id: gaugeId, farm_id: access.farm.id }).whereNull('deleted_at').forUpdate().first();
 			if (!row) throw notFound('rain gauge');
 			if (row.version !== patch.version) throw versionConflict('rain gauge', row.version, patch.version);
 			const before = await getGauge(trx, access, gaugeId);
@@ -138,6 +140,7 @@ export async function updateGauge(access: FarmAccess, gaugeId: string, patch: Ga
 /** Soft delete: the gauge and its readings leave the lists, and stay in the database. */
 export async function deleteGauge(access: FarmAccess, gaugeId: string): Promise<void> {
 	await db().transaction(async (trx) => {
+		if (!isUuid(gaugeId)) throw notFound('rain gauge');
 		const row = await trx('rain_gauges').where({ id: gaugeId, farm_id: access.farm.id }).whereNull('deleted_at').forUpdate().first();
 		if (!row) throw notFound('rain gauge');
 		await trx('rain_gauges').where({ id: gaugeId }).update({ deleted_at: trx.fn.now(), deleted_by: access.user.id });
@@ -162,6 +165,7 @@ export async function listReadings(access: FarmAccess, season: number, gaugeId?:
 }
 
 async function getReading(q: Knex, access: FarmAccess, readingId: string): Promise<RainReading> {
+	if (!isUuid(readingId)) throw notFound('rainfall reading');
 	const row = await readingsQuery(q, access).where({ 'r.id': readingId }).first();
 	if (!row) throw notFound('rainfall reading');
 	return toReading(row);
