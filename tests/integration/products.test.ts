@@ -197,3 +197,51 @@ describe('GET, PATCH and DELETE /api/farms/:farmId/products/:productId', () => {
 		expect(audit.map((a) => a.action)).toEqual(['create', 'delete']);
 	});
 });
+
+describe('product pages', () => {
+	// eslint-disable-next-line @typescript-eslint/no-explicit-any
+	function formEvent(user: SessionUser, path: string, params: Record<string, string>, form: Record<string, string>): any {
+		const url = new URL(`http://127.0.0.1${path}`);
+		const body = new FormData();
+		for (const [k, v] of Object.entries(form)) body.set(k, v);
+		return { locals: { user, session: null }, url, params, request: new Request(url, { method: 'POST', body }) };
+	}
+	const filled = { name: 'post herbicide T', kind: 'herbicide', unit: 'fl oz', epaRegNo: '1234-56', reiHours: '4', phiDays: '45', grazingDays: '', activeIngredients: '', formulation: '', analysis: '', poundsPerGallon: '', notes: '' };
+
+	it('the add action refuses crew, advisor and viewer with 403 and answers bad values beside their inputs', async () => {
+		const { actions } = await import('../../src/routes/(app)/farms/[farmId]/products/new/+page.server');
+		const { farm, members } = await setup();
+		const path = `/farms/${farm.id}/products/new`;
+		for (const role of ['crew', 'advisor', 'viewer'] as const) {
+			const refused = await actions.create(formEvent(members[role], path, { farmId: farm.id }, filled)).catch((e) => e);
+			expect(refused.status, role).toBe(403);
+		}
+		const bad = (await actions.create(formEvent(members.owner, path, { farmId: farm.id }, { ...filled, reiHours: 'twelve', phiDays: '-1' }))) as { status: number; data: { errors: Record<string, string[]>; values: { name: string } } };
+		expect(bad.status).toBe(400);
+		expect(bad.data.errors.reiHours).toEqual(['Enter the restricted-entry interval in hours, e.g. 12, or leave it empty.']);
+		expect(bad.data.errors.phiDays).toEqual(['An interval cannot be negative.']);
+		expect(bad.data.values.name).toBe('post herbicide T');
+		expect(await db()('products').where({ farm_id: farm.id }).count('* as n').first()).toEqual({ n: 0 });
+		const made = await actions.create(formEvent(members.manager, path, { farmId: farm.id }, { ...filled, restrictedUse: 'on' })).catch((e) => e);
+		expect(made.status).toBe(303);
+		const row = await db()('products').where({ farm_id: farm.id }).first();
+		expect([row.name, row.unit, row.restricted_use, Number(row.rei_hours), row.phi_days, row.grazing_days]).toEqual(['post herbicide T', 'fl oz', true, 4, 45, null]);
+	});
+
+	it('the edit page of another farm\'s product is a 404, and a stale edit form gets 409', async () => {
+		const page = await import('../../src/routes/(app)/farms/[farmId]/products/[productId]/+page.server');
+		const { farm, members, create } = await setup();
+		const p = await (await create(members.owner, residualA)).json();
+		const other = await setup();
+		const theirs = await (await other.create(other.members.owner, { name: 'theirs', kind: 'other', unit: 'lb' })).json();
+		const params = { farmId: farm.id, productId: theirs.id };
+		const missing = await page.load({ locals: { user: members.owner, session: null }, url: new URL(`http://127.0.0.1/farms/${farm.id}/products/${theirs.id}`), params, request: new Request('http://127.0.0.1/') } as never).catch((e) => e);
+		expect(missing.status).toBe(404);
+		const path = `/farms/${farm.id}/products/${p.id}`;
+		await page.actions.save(formEvent(members.owner, path, { farmId: farm.id, productId: p.id }, { ...filled, name: p.name, version: '1' })).catch((e) => e);
+		const stale = (await page.actions.save(formEvent(members.manager, path, { farmId: farm.id, productId: p.id }, { ...filled, name: p.name, reiHours: '99', version: '1' }))) as { status: number; data: { conflict: boolean } };
+		expect(stale.status).toBe(409);
+		expect(stale.data.conflict).toBe(true);
+		expect(Number((await db()('products').where({ id: p.id }).first()).rei_hours)).toBe(4);
+	});
+});

@@ -154,3 +154,38 @@ describe('one variety, and its seed lots', () => {
 		expect((await create(members.owner, hybrid)).status).toBe(201);
 	});
 });
+
+describe('seed catalogue pages', () => {
+	// eslint-disable-next-line @typescript-eslint/no-explicit-any
+	function formEvent(user: SessionUser, path: string, params: Record<string, string>, form: Record<string, string>): any {
+		const url = new URL(`http://127.0.0.1${path}`);
+		const body = new FormData();
+		for (const [k, v] of Object.entries(form)) body.set(k, v);
+		return { locals: { user, session: null }, url, params, request: new Request(url, { method: 'POST', body }) };
+	}
+
+	it('adding a variety or a lot through the pages is refused to crew, advisor and viewer; bad numbers answer beside their inputs', async () => {
+		const list = await import('../../src/routes/(app)/farms/[farmId]/seeds/+page.server');
+		const one = await import('../../src/routes/(app)/farms/[farmId]/seeds/[varietyId]/+page.server');
+		const { farm, members, create } = await setup();
+		const v = await (await create(members.owner, hybrid)).json();
+		const variety = { crop: 'corn', name: 'hybrid U', relativeMaturity: '98', seedsPerUnit: '80,000', traits: '', notes: '' };
+		for (const role of ['crew', 'advisor', 'viewer'] as const) {
+			expect((await list.actions.create(formEvent(members[role], `/farms/${farm.id}/seeds`, { farmId: farm.id }, variety)).catch((e) => e)).status, role).toBe(403);
+			expect((await one.actions.addLot(formEvent(members[role], `/farms/${farm.id}/seeds/${v.id}`, { farmId: farm.id, varietyId: v.id }, { lotNumber: 'X' })).catch((e) => e)).status, role).toBe(403);
+		}
+		const bad = (await list.actions.create(formEvent(members.owner, `/farms/${farm.id}/seeds`, { farmId: farm.id }, { ...variety, seedsPerUnit: 'a bag' }))) as { status: number; data: { errors: Record<string, string[]> } };
+		expect(bad.status).toBe(400);
+		expect(bad.data.errors.seedsPerUnit).toEqual(['Enter seeds per unit as a whole number, e.g. 80000.']);
+		const made = await list.actions.create(formEvent(members.manager, `/farms/${farm.id}/seeds`, { farmId: farm.id }, variety)).catch((e) => e);
+		expect(made.status).toBe(303);
+		expect((await db()('varieties').where({ farm_id: farm.id, name: 'hybrid U' }).first()).seeds_per_unit).toBe(80_000);
+		const lot = await one.actions.addLot(formEvent(members.manager, `/farms/${farm.id}/seeds/${v.id}`, { farmId: farm.id, varietyId: v.id }, { lotNumber: 'U-1', germinationPct: '96', treatment: 'untreated', unitsOnHand: '' }));
+		expect(lot).toEqual({ form: 'lot', added: 'U-1' });
+
+		const other = await setup();
+		const theirs = await (await other.create(other.members.owner, hybrid)).json();
+		const foreign = await one.load({ locals: { user: members.owner, session: null }, url: new URL(`http://127.0.0.1/farms/${farm.id}/seeds/${theirs.id}`), params: { farmId: farm.id, varietyId: theirs.id }, request: new Request('http://127.0.0.1/') } as never).catch((e) => e);
+		expect(foreign.status).toBe(404);
+	});
+});
