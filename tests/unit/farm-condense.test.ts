@@ -34,3 +34,37 @@ describe('condensed warnings', () => {
 		expect(many[0].summary).toBe('2 lanes (5, 7): Lane 5 is odd.');
 	});
 });
+
+import { planterCheckSummary } from '$lib/farm/planter-check';
+import { layoutStrips } from '$lib/geometry/index';
+import { rectangle } from '../fixtures/rectangle';
+
+describe('planter check summary', () => {
+	const boundary = rectangle(320, 600);
+	const [sw, , , nw] = boundary.coordinates[0] as [number, number][];
+	const pattern = [{ kind: 'crop' as const, crop: 'corn', rows: 8, rowSpacingIn: 30 }, { kind: 'crop' as const, crop: 'soybean', rows: 8, rowSpacingIn: 30 }];
+	const { lanes } = layoutStrips({ boundary, guidance: { a: sw, b: nw }, pattern });
+	const units = (cornUnits: number, total: number) => Array.from({ length: total }, (_, i) => ({ unit: i + 1, seed: i < cornUnits ? { crop: 'corn', variety: null } : { crop: 'soybean', variety: null }, fertilizerOn: [] }));
+
+	it('passes a split planter that matches the lanes', () => {
+		const s = planterCheckSummary(lanes, pattern, { rowSpacingIn: 30, fertilizerLines: [], rowUnits: units(8, 16) });
+		expect(s.error).toBeNull();
+		expect(s.stops).toBe(0);
+		expect(s.ok).toBe(true);
+	});
+
+	it('counts STOP findings by kind, STOP kinds first', () => {
+		const s = planterCheckSummary(lanes, pattern, { rowSpacingIn: 20, fertilizerLines: [], rowUnits: units(8, 16) });
+		expect(s.ok).toBe(false);
+		expect(s.stops).toBeGreaterThan(0);
+		expect(s.kinds[0].severity).toBe('stop');
+		expect(s.kinds.reduce((n, k) => n + k.count, 0)).toBe(s.stops + s.warnings);
+		expect(s.kinds.map((k) => k.problem)).toContain('planter row spacing differs from the lane');
+	});
+
+	it('says why a planter without row units cannot be checked', () => {
+		const s = planterCheckSummary(lanes, pattern, { rowSpacingIn: 30, fertilizerLines: [], rowUnits: [] });
+		expect(s.ok).toBe(false);
+		expect(s.error).toMatch(/row unit/i);
+	});
+});

@@ -1,6 +1,6 @@
 // The default planter checked against a plan's lanes, summarised per kind of problem. Pure.
 import { checkPasses, EquipmentError, planPasses, type PlanterSetup } from '../equipment/index';
-import type { Lane, LaneSpec } from '../geometry/index';
+import { GeometryError, type Lane, type LaneSpec } from '../geometry/index';
 
 export interface PlanterCheckSummary {
 	/** True when nothing stops the planter. */
@@ -45,7 +45,8 @@ export function planterCheckSummary(lanes: readonly Lane[], pattern: readonly La
 		const stops = checks.filter((c) => c.severity === 'stop').length;
 		return { ok: stops === 0, stops, warnings: checks.length - stops, kinds: list, error: null };
 	} catch (e) {
-		if (!(e instanceof EquipmentError)) throw e;
+		// A planter set up incompletely, or a stored lane the pass planner cannot read.
+		if (!(e instanceof EquipmentError) && !(e instanceof GeometryError)) throw e;
 		return { ok: false, stops: 1, warnings: 0, kinds: [], error: e.message };
 	}
 }
