@@ -194,4 +194,28 @@ describe('yield-monitor import through the queue', () => {
 		expect(peek.status).toBe(404);
 		await expect(getYieldImport(await requireMember(fakeEvent(other.members.owner), other.farm.id), other.field.id, 2026, mine.id)).rejects.toMatchObject({ status: 404 });
 	});
+	it('a 100,000-point file goes from upload to per-lane summary in under 10 s', async () => {
+		const { farm, members } = await makeFarmWithTeam();
+		const access = await requireMember(fakeEvent(members.owner), farm.id, 'editPlans');
+		const boundary = rectangle(3960, 2640, -94.3, 44.0);
+		const [sw, , , nw] = boundary.coordinates[0] as [number, number][];
+		const field = await createField(access, { name: 'Big strips', boundary, exclusions: [], farmNumber: null, tractNumber: null, fieldNumber: null, landlord: null, notes: null });
+		await savePlan(access, field.id, 2026, {
+			guidance: { a: sw, b: nw }, pattern: [{ kind: 'crop', crop: 'corn', rows: 8, rowSpacingIn: 30 }, { kind: 'crop', crop: 'soybean', rows: 8, rowSpacingIn: 30 }],
+			offsetFt: 0, headlandFt: 0, variant: 'main', version: 0, assignments: [], notes: null, rebase: false
+		});
+		const file = generateYieldFile({ lng: -94.3, lat: 44.0, lanes: 198, laneWidthFt: 20, lengthFt: 2640, yieldOf, secondsPerPoint: 0.8, mishaps: true, limit: 100_000 });
+		expect(file.expected.total).toBe(100_000);
+		const params = { farmId: farm.id, fieldId: field.id, season: '2026' };
+		const path = `/api/farms/${farm.id}/fields/${field.id}/seasons/2026/yield-imports`;
+		const started = performance.now();
+		const res = await uploadApi(uploadEvent(members.crew, path, params, { csv: file.csv, source: 'Big display', mapping: MAPPING }));
+		expect(res.status).toBe(202);
+		const { body } = await untilFinished(members.owner, path, params, (await res.json()).id);
+		const seconds = (performance.now() - started) / 1000;
+		expect(body.status).toBe('done');
+		expect(body.counts.read).toBe(100_000);
+		expect(body.lanes).toHaveLength(199);
+		expect(seconds).toBeLessThan(10);
+	});
 });
