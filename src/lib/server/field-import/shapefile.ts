@@ -67,6 +67,23 @@ function layersOf(zip: ZipArchive, fileLabel: string): Layer[] {
 }
 
 /**
+ * A damaged .dbf header can claim millions of records; the parser would then loop and allocate
+ * for each of them (a minute and hundreds of MB for a 200-byte file). Refuse a header whose
+ * records do not fit in the file. dBase header: records at bytes 4–7, header length 8–9,
+ * record length 10–11, little-endian.
+ */
+function checkDbfHeader(bytes: Uint8Array, name: string) {
+	if (bytes.length < 32) throw unreadable(`its attribute table ${name} is cut short (${bytes.length} bytes)`);
+	const view = asDataView(bytes);
+	const records = view.getUint32(4, true);
+	const headerLength = view.getUint16(8, true);
+	const recordLength = view.getUint16(10, true);
+	if (headerLength < 33 || recordLength < 1 || headerLength + records * recordLength > bytes.length + 1) {
+		throw unreadable(`its attribute table ${name} is damaged: its header claims ${records} records of ${recordLength} bytes, more than the ${bytes.length}-byte file holds`);
+	}
+}
+
+/**
  * Reads every shapefile layer in a zip archive, converting coordinates to WGS84 longitude/latitude
  * as the layer's .prj says.
  * @throws ImportError unreadable, no_shapefile, unknown_projection
@@ -88,7 +105,9 @@ export function readShapefileZip(zip: ZipArchive, fileLabel: string): { features
 		if (layer.dbf) {
 			const cpg = layer.cpg ? new TextDecoder().decode(zip.read(layer.cpg)).trim() : undefined;
 			try {
-				records = parseDbf(asDataView(zip.read(layer.dbf)), cpg);
+				const dbf = zip.read(layer.dbf);
+				checkDbfHeader(dbf, layer.dbf.name);
+				records = parseDbf(asDataView(dbf), cpg);
 			} catch (e) {
 				if (e instanceof ImportError) throw e;
 				throw unreadable(`its attribute table ${layer.dbf.name}: ${shortReason(e)}`);
