@@ -13,7 +13,7 @@ import type { GrainCrop } from '../agronomy/index';
 
 export const harvestEntrySchema = z.object({
 	laneIndexes: z.array(z.number().int().min(0).max(100_000)).min(1, 'Choose at least one lane.').max(1000),
-	crop: z.string().trim().min(1, 'Name the crop.').max(60),
+	crop: z.string().trim().toLowerCase().min(1, 'Name the crop.').max(60),
 	wetWeightLb: z.number().finite(),
 	moisturePct: z.number().finite(),
 	lengthFt: z.number().finite().positive('The length must be more than 0 ft.').max(100_000).nullish(),

@@ -22,6 +22,10 @@ async function startBoss(options: { supervise: boolean; max: number }): Promise<
 
 /** The app's handle for sending jobs (started once, without maintenance: workers do that). */
 function senderBoss(): Promise<PgBoss> {
+	if (!sender) {
+		// adapter-node emits this after a graceful stop: an open queue pool would keep the process alive.
+		process.once('sveltekit:shutdown', () => void closeJobs());
+	}
 	sender ??= startBoss({ supervise: false, max: 2 }).catch((e) => {
 		sender = undefined;
 		throw e;
