@@ -3,7 +3,7 @@ import { db } from '$lib/server/db';
 import { createField } from '$lib/server/fields';
 import { savePlan } from '$lib/server/plans';
 import { requireMember } from '$lib/server/access';
-import { harvestAnalysis } from '$lib/server/harvest-analysis';
+import { farmHarvestIndex, harvestAnalysis } from '$lib/server/harvest-analysis';
 import { GET as listApi, POST as createApi } from '../../src/routes/api/farms/[farmId]/fields/[fieldId]/seasons/[season]/harvest/+server';
 import { DELETE as deleteApi } from '../../src/routes/api/farms/[farmId]/fields/[fieldId]/seasons/[season]/harvest/[entryId]/+server';
 import { GET as csvApi } from '../../src/routes/api/farms/[farmId]/fields/[fieldId]/seasons/[season]/harvest.csv/+server';
@@ -174,5 +174,19 @@ describe('harvest entries through the JSON API', () => {
 		const lines = (await res.text()).split('\r\n');
 		expect(lines[0]).toBe('season,harvested_on,lanes,crop,varieties,trial,row_position,wet_weight_lb,moisture_pct,length_ft,rows,row_spacing_in,harvested_acres,standard_moisture_pct,lb_per_bu,bushels,bu_per_ac,notes');
 		expect(lines[1]).toBe("2026,,1 3,corn,,,all,10000,20,1000,16,30,0.9183,15.5,56,169.06,184.11,'=SUM(A1)");
+	});
+	it('the farm-wide index sums bushels and acres per field, season and crop; viewers see only granted fields', async () => {
+		const { farm, members, post, field } = await harvestFarm();
+		const a = await (await post(members.crew, { laneIndexes: [0], crop: 'corn', wetWeightLb: 5000, moisturePct: 20, lengthFt: 1000, rows: 8, rowSpacingIn: 30 })).json();
+		const b = await (await post(members.crew, { laneIndexes: [2], crop: 'corn', wetWeightLb: 1300, moisturePct: 18, rowPosition: 'outside' })).json();
+		const owner = await requireMember(fakeEvent(members.owner), farm.id);
+		const [row, ...more] = await farmHarvestIndex(owner);
+		expect(more).toEqual([]);
+		expect(row).toMatchObject({ fieldId: field.id, fieldName: 'Harvest strips', season: 2026, entries: 2, imports: 0 });
+		expect(row.byCrop).toHaveLength(1);
+		expect(row.byCrop[0].crop).toBe('corn');
+		expect(row.byCrop[0].bushels).toBeCloseTo(a.bushels + b.bushels, 6);
+		expect(row.byCrop[0].acres).toBeCloseTo(a.harvestedAcres + b.harvestedAcres, 6);
+		expect(await farmHarvestIndex(await requireMember(fakeEvent(members.viewer), farm.id))).toEqual([]);
 	});
 });

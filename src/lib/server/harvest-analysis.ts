@@ -95,9 +95,9 @@ export interface FarmHarvestRow {
 }
 
 /**
- * Every field × season with harvest on record: entries, bushels and acres per crop (whole-lane
- * entries only, so outside and inside rows are not counted twice). Reports and landlord summaries
- * read their harvest figures from here.
+ * Every field × season with harvest on record: entries, bushels and acres per crop (outside and inside
+ * rows weighed apart are separate grain and separate acres, so they simply add up). Reports and
+ * landlord summaries read their harvest figures from here.
  */
 export async function farmHarvestIndex(access: FarmAccess): Promise<FarmHarvestRow[]> {
 	const fieldsQuery = db()('fields').where({ farm_id: access.farm.id }).whereNull('deleted_at');
@@ -109,7 +109,7 @@ export async function farmHarvestIndex(access: FarmAccess): Promise<FarmHarvestR
 		.groupBy('field_id', 'season', 'crop')
 		.select('field_id', 'season', 'crop')
 		.count('* as entries')
-		.select(db().raw("coalesce(sum(bushels) filter (where row_position = 'all'), 0) + coalesce(sum(bushels) filter (where row_position <> 'all'), 0) as bushels"))
+		.select(db().raw('sum(bushels) as bushels'))
 		.select(db().raw('sum(harvested_acres) as acres'));
 	const imports = await db()('yield_imports').where({ farm_id: access.farm.id, status: 'done' }).whereIn('field_id', ids).whereNull('deleted_at')
 		.groupBy('field_id', 'season').select('field_id', 'season').count('* as n');
