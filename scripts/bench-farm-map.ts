@@ -88,7 +88,7 @@ async function main() {
 				const label = i % 2 === 0 ? 'Next season (2026)' : 'Previous season (2025)';
 				const before = await map.getAttribute('data-draw-ms');
 				await page.evaluate(() => document.querySelector('[data-testid="season-map"]')?.removeAttribute('data-draw-ms'));
-				await page.getByRole('button', { name: label }).click();
+				await page.getByRole('link', { name: label }).click();
 				await page.waitForFunction(() => document.querySelector('[data-testid="season-map"]')?.hasAttribute('data-draw-ms'), null, { timeout: 120_000 });
 				await page.waitForFunction((n) => document.querySelector('[data-testid="season-map"]')?.getAttribute('data-draw-count') === String(n), polygons, { timeout: 120_000 });
 				times.push(Number(await map.getAttribute('data-draw-ms')));

@@ -27,7 +27,7 @@ test('the season map steps through seasons in place with buttons, arrow keys and
 	// Survives only if the page is never reloaded.
 	await page.evaluate(() => ((window as unknown as { stayed: string }).stayed = 'same page'));
 
-	await page.getByRole('button', { name: 'Previous season (2025)' }).click();
+	await page.getByRole('link', { name: 'Previous season (2025)' }).click();
 	await expect(shown).toHaveText('Season 2025');
 	await expect(page).toHaveURL(new RegExp(`/farms/${farmId}\\?season=2025$`));
 	await expect(map).toHaveAttribute('data-draw-count', String(w2025.lanes.length));
@@ -47,7 +47,7 @@ test('the season map steps through seasons in place with buttons, arrow keys and
 	await page.keyboard.press('ArrowLeft');
 	await page.keyboard.press('ArrowLeft');
 	await expect(shown).toHaveText('Season 2025');
-	await page.getByRole('button', { name: 'Next season (2026)' }).click();
+	await page.getByRole('link', { name: 'Next season (2026)' }).click();
 	await expect(shown).toHaveText('Season 2026');
 	expect(await page.evaluate(() => (window as unknown as { stayed?: string }).stayed)).toBe('same page');
 

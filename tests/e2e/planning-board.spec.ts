@@ -32,6 +32,9 @@ test('the planning board plans every missing field for next season and leaves pl
 	await expect(viewer.page.getByRole('button', { name: 'Plan 2031 for every field' })).toHaveCount(0);
 	await viewer.page.context().close();
 
+	// Inviting took the owner to the team page; back to the board.
+	await page.goto(`/farms/${farmId}/planning?season=2031`);
+
 	await page.getByRole('button', { name: 'Plan 2031 for every field' }).click();
 	const summary = page.getByTestId('batch-summary');
 	await expect(summary.getByRole('heading', { level: 2 })).toHaveText('Planned 2031: 1 new plan');
