@@ -123,6 +123,20 @@ describe('yield-monitor import through the queue', () => {
 		expect((await untilFinished(members.owner, path, params, againBody.id)).body.status).toBe('done');
 		const listed = await (await listApi(jsonEvent(members.advisor, 'GET', path, params))).json();
 		expect(listed.map((i: { id: string }) => i.id)).toEqual([againBody.id, started.id]);
+
+		// Next season the strips move 10 ft east: each new 20-ft lane stands half on last year's corn
+		// lane and half on its soybean lane, and the history follows the ground, not the lane number.
+		const [sw, , , nw] = (field.boundary as { coordinates: [number, number][][] }).coordinates[0];
+		const next = await savePlan(access, field.id, 2027, {
+			guidance: { a: sw, b: nw }, pattern: [{ kind: 'crop', crop: 'soybean', rows: 8, rowSpacingIn: 30 }, { kind: 'crop', crop: 'corn', rows: 8, rowSpacingIn: 30 }],
+			offsetFt: 10, headlandFt: 0, variant: 'main', version: 0, assignments: [], notes: null, rebase: false
+		});
+		expect(next.lanes[1].offsetFt).toBeCloseTo(10, 6);
+		const history = (await harvestAnalysis(access, field.id, 2027)).history;
+		const lane1 = history.find((h) => h.laneIndex === 1)!;
+		expect(lane1.seasons.map((s) => s.season)).toEqual([2026]);
+		expect(lane1.seasons[0].crops.map((c) => c.crop).sort()).toEqual(['corn', 'soybean']);
+		expect(lane1.seasons[0].bushelsPerAcre).toBeCloseTo((yieldOf(0) + yieldOf(1)) / 2, 0);
 	});
 
 	it('a new source waits for its columns; a semicolon file with decimal commas reads the same', async () => {

@@ -51,17 +51,29 @@ async function monitorYields(access: FarmAccess, fieldId: string, season: number
 	return { id: row.id, lanes };
 }
 
-/** Earlier seasons' weighed lanes of the field, with their whole-lane yields as of that season. */
+/**
+ * Earlier seasons' lanes of the field with their whole-lane yields as of that season: from the weighed
+ * loads, or, for a season with none, from its latest yield-monitor file (each keeps its lanes' outlines).
+ */
 async function pastLanes(access: FarmAccess, fieldId: string, season: number): Promise<PastLane[]> {
-	const seasons: number[] = (await db()('harvest_entries').where({ farm_id: access.farm.id, field_id: fieldId }).where('season', '<', season)
-		.whereNull('deleted_at').distinct('season').orderBy('season', 'desc').limit(10)).map((r) => r.season);
+	const q = (table: string) => db()(table).where({ farm_id: access.farm.id, field_id: fieldId }).where('season', '<', season).whereNull('deleted_at');
+	const weighed = new Set<number>((await q('harvest_entries').distinct('season')).map((r) => r.season));
+	const monitored = new Set<number>((await q('yield_imports').where({ status: 'done' }).distinct('season')).map((r) => r.season));
+	const seasons = [...new Set([...weighed, ...monitored])].sort((a, b) => b - a).slice(0, 10);
 	const out: PastLane[] = [];
 	for (const s of seasons) {
-		const entries = await listHarvest(access, fieldId, s);
-		const lanes = lanesOf(entries, []);
-		const yields = laneYields(lanes.map(toAnalysisLane), entries.map(toAnalysisEntry));
-		const geometry = new Map(lanes.map((l) => [l.laneIndex, l.geometry as Polygon | MultiPolygon]));
-		for (const y of yields) out.push({ season: s, laneIndex: y.laneIndex, crop: y.crop, geometry: geometry.get(y.laneIndex)!, bushelsPerAcre: y.laneYield });
+		if (weighed.has(s)) {
+			const entries = await listHarvest(access, fieldId, s);
+			const lanes = lanesOf(entries, []);
+			const yields = laneYields(lanes.map(toAnalysisLane), entries.map(toAnalysisEntry));
+			const geometry = new Map(lanes.map((l) => [l.laneIndex, l.geometry as Polygon | MultiPolygon]));
+			for (const y of yields) out.push({ season: s, laneIndex: y.laneIndex, crop: y.crop, geometry: geometry.get(y.laneIndex)!, bushelsPerAcre: y.laneYield });
+			continue;
+		}
+		const row = await q('yield_imports').where({ season: s, status: 'done' }).orderBy('finished_at', 'desc').first('lane_summaries');
+		for (const l of (row?.lane_summaries ?? []) as { laneIndex: number; crop: string; meanBushelsPerAcre: number | null; geometry?: Polygon | MultiPolygon }[]) {
+			if (l.geometry) out.push({ season: s, laneIndex: l.laneIndex, crop: l.crop, geometry: l.geometry, bushelsPerAcre: l.meanBushelsPerAcre });
+		}
 	}
 	return out;
 }

@@ -59,7 +59,7 @@ function toImport(r: Row): YieldImport {
 	return {
 		id: r.id, fieldId: r.field_id, season: r.season, sourceName: r.source_name, fileName: r.file_name, fileBytes: r.file_bytes,
 		headers, mapping: r.mapping ?? null, suggestedMapping: r.status === 'needs_mapping' ? guessMapping(headers) : null,
-		status: r.status, progress: Number(r.progress), counts: r.counts ?? {}, lanes: r.lane_summaries ?? [], error: r.error,
+		status: r.status, progress: Number(r.progress), counts: r.counts ?? {}, lanes: ((r.lane_summaries ?? []) as (LaneSummary & { geometry?: unknown })[]).map(({ geometry: _g, ...l }) => l), error: r.error,
 		createdAt: new Date(r.created_at).toISOString(), finishedAt: r.finished_at ? new Date(r.finished_at).toISOString() : null, version: r.version
 	};
 }
@@ -259,8 +259,11 @@ export async function processYieldImport(importId: string): Promise<void> {
 			throw new YieldFileError(`None of the ${summary.counts.read} points lies in a grain lane of this field's plan: is this the right field, or are longitude and latitude swapped?`, 'outside_field');
 		}
 		await db().transaction(async (trx) => {
+			// Each lane keeps its outline as it stood, so later seasons can find the same ground.
+			const outlines = new Map(lanes.map((l) => [l.laneIndex, l.geometry]));
+			const stored = summary.lanes.map((l) => ({ ...l, geometry: outlines.get(l.laneIndex) }));
 			await trx('yield_imports').where({ id: importId }).update({
-				status: 'done', progress: 1, counts: JSON.stringify(summary.counts), lane_summaries: JSON.stringify(summary.lanes), finished_at: trx.fn.now(), error: null
+				status: 'done', progress: 1, counts: JSON.stringify(summary.counts), lane_summaries: JSON.stringify(stored), finished_at: trx.fn.now(), error: null
 			});
 			await trx('yield_import_files').where({ import_id: importId }).delete();
 		});
