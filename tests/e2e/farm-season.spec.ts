@@ -1,4 +1,5 @@
 import { expect, test } from '@playwright/test';
+import AxeBuilder from '@axe-core/playwright';
 import { CORN_8, SOYBEAN_8, eightyAcres, ownFarm, ownField, ownPlan } from './own-farm';
 
 // Two 80-acre fields side by side, 200 ft apart: West has plans for 2025 and 2026, East only 2026.
@@ -80,4 +81,25 @@ test('a farm with no fields shows an empty state on the season map', async ({ pa
 	await expect(page.getByRole('heading', { level: 2, name: 'No fields yet' })).toBeVisible();
 	await expect(page.getByText('No fields to total yet.')).toBeVisible();
 	await expect(page.getByRole('link', { name: 'Winter planning board' })).toBeVisible();
+});
+
+test.describe('at phone width', () => {
+	test.use({ viewport: { width: 375, height: 812 } });
+	test('the season map, planning board and needs pages have no serious accessibility problems and 44-px steps', async ({ page }) => {
+		test.setTimeout(180_000);
+		const { farmId } = await ownFarm(page, 'phone-map');
+		const west = await ownField(page.request, farmId, 'Phone 80', WEST.boundary);
+		await ownPlan(page.request, farmId, west, 2026, { guidance: WEST.guidance, ...STRIPS });
+		for (const path of [`/farms/${farmId}?season=2026`, `/farms/${farmId}/planning?season=2027`, `/farms/${farmId}/needs?season=2026`]) {
+			const res = await page.goto(path);
+			expect(res?.status()).toBe(200);
+			await page.waitForLoadState('networkidle');
+			const result = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa']).exclude('.leaflet-pane').analyze();
+			expect(result.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => `${v.id}: ${v.nodes[0]?.target.join(' ')}`), path).toEqual([]);
+		}
+		await page.goto(`/farms/${farmId}?season=2026`);
+		for (const name of ['Previous season (2025)', 'Next season (2027)']) {
+			expect((await page.getByRole('link', { name }).boundingBox())!.height).toBeGreaterThanOrEqual(44);
+		}
+	});
 });
