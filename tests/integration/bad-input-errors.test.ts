@@ -48,6 +48,17 @@ describe('PostgreSQL data refusals become 400s', () => {
 		expect(fromDatabaseInputError(tooBig)?.status).toBe(400);
 	});
 
+	it('a CHECK constraint (23514) the code did not check first is a 400, not a fault', async () => {
+		const table = `check_probe_${randomUUID().slice(0, 8)}`;
+		await db().raw(`create table ${table} (amount numeric check (amount > 0))`);
+		const e = await databaseError(`insert into ${table} (amount) values (?)`, [0]);
+		await db().raw(`drop table ${table}`);
+		expect((e as { code: string }).code).toBe('23514');
+		const refused = fromDatabaseInputError(e)!;
+		expect(refused.status).toBe(400);
+		expect(refused.message).toBe('A value is outside what can be stored (for example zero or negative where an amount is needed); check the values and try again.');
+	});
+
 	it('other database errors are not mistaken for bad input', async () => {
 		const missing = await databaseError('select * from no_such_table_here', []);
 		expect((missing as { code: string }).code).toBe('42P01');

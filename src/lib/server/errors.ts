@@ -56,6 +56,8 @@ const DATA_EXCEPTION_MESSAGES: Record<string, string> = {
 /** The 400 for a value PostgreSQL refused as data, or null when the error is something else. */
 export function fromDatabaseInputError(e: unknown): AppError | null {
 	const code = (e as { code?: unknown } | null)?.code;
+	// A CHECK constraint (23514) guards a value the code should have refused first: still bad input.
+	if (code === '23514') return new AppError(400, 'A value is outside what can be stored (for example zero or negative where an amount is needed); check the values and try again.', 'invalid');
 	if (typeof code !== 'string' || !/^22[0-9A-Z]{3}$/.test(code)) return null;
 	return new AppError(400, DATA_EXCEPTION_MESSAGES[code] ?? 'A value cannot be stored as sent; check the values and try again.', 'invalid');
 }
