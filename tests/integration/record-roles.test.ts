@@ -1,7 +1,12 @@
 // Who may log, edit, delete, restore and read season records; another farm's ids answer 404.
 import { describe, expect, it } from 'vitest';
 import { db } from '$lib/server/db';
-import { call, hoursAgo, operationCount, recordFarm, routes } from './records-setup';
+import { call, event, hoursAgo, operationCount, recordFarm, routes } from './records-setup';
+import { thrown } from './helpers';
+import * as newPage from '../../src/routes/(app)/farms/[farmId]/fields/[fieldId]/seasons/[season]/records/new/+page.server';
+import * as quickPage from '../../src/routes/(app)/farms/[farmId]/fields/[fieldId]/seasons/[season]/quick/+page.server';
+import * as seasonPage from '../../src/routes/(app)/farms/[farmId]/fields/[fieldId]/seasons/[season]/+page.server';
+import * as recordPage from '../../src/routes/(app)/farms/[farmId]/fields/[fieldId]/seasons/[season]/records/[recordId]/+page.server';
 
 const { listRoute, oneRoute, restoreRoute, restrictionsRoute, csvRoute } = routes;
 
@@ -90,5 +95,29 @@ describe('record roles', () => {
 		const s = await recordFarm();
 		expect((await call(listRoute.GET, null, s.params)).status).toBe(401);
 		expect((await call(listRoute.POST, null, s.params, { method: 'POST', json: spraying(s.products.herbicide) })).status).toBe(401);
+	});
+
+	it('pages: the record forms refuse advisors and viewers (403); the season page hides ungranted fields (404); a page action checks the role too', async () => {
+		const s = await recordFarm();
+		const page = (user: Parameters<typeof event>[0], params: Record<string, string>, method = 'GET', body?: FormData) =>
+			({ ...event(user, '/farms/x', { method, ...(body ? { body } : {}) }), params }) as never;
+		for (const role of ['advisor', 'viewer'] as const) {
+			expect((await thrown(() => newPage.load(page(s.members[role], s.params)))).status, role).toBe(403);
+			expect((await thrown(() => quickPage.load(page(s.members[role], s.params)))).status, role).toBe(403);
+		}
+		expect((await thrown(() => seasonPage.load(page(s.members.viewer, s.params)))).status).toBe(404);
+		const seen = (await seasonPage.load(page(s.members.advisor, s.params))) as { lanes: unknown[] };
+		expect(seen.lanes).toHaveLength(33);
+		const form = new FormData();
+		form.set('type', 'tillage');
+		form.set('lanes', '1-2');
+		expect((await thrown(() => newPage.actions.default(page(s.members.advisor, s.params, 'POST', form)))).status).toBe(403);
+		const created = await call(listRoute.POST, s.members.crew, s.params, { method: 'POST', json: spraying(s.products.herbicide) });
+		const one = { ...s.params, recordId: created.body.id };
+		expect((await thrown(() => recordPage.actions.delete(page(s.members.advisor, one, 'POST', new FormData())))).status).toBe(403);
+		expect((await thrown(() => recordPage.actions.restore(page(s.members.crew, one, 'POST', new FormData())))).status).toBe(403);
+		const other = await recordFarm();
+		expect((await thrown(() => recordPage.load(page(other.members.owner, one)))).status).toBe(404);
+		expect(await operationCount(s.field.id)).toBe(1);
 	});
 });
