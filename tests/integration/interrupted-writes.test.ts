@@ -8,6 +8,7 @@ import { createField } from '$lib/server/fields';
 import { savePlan } from '$lib/server/plans';
 import { makeFarmWithTeam, fakeEvent } from './helpers';
 import { rectangle } from '../fixtures/rectangle';
+import { recordFarm, routes, call, hoursAgo } from './records-setup';
 
 async function snapshot(): Promise<Record<string, string>> {
 	const tables = (await db()('pg_tables').where({ schemaname: 'public' }).pluck('tablename')) as string[];
@@ -61,5 +62,17 @@ describe('a write cut off mid-transaction', () => {
 		expect(failed?.message).toMatch(/terminat|Connection/i);
 		expect(await snapshot()).toEqual(before);
 		expect(await db()('plans').where({ field_id: field.id }).count('* as n').first()).toEqual({ n: 0 });
+	});
+
+	it('saves no part of a season record: no operation, lanes, product lines or audit row', async () => {
+		const s = await recordFarm();
+		await killConnectionOnAudit(s.farm.id);
+		const before = await snapshot();
+		const answer = await call(routes.listRoute.POST, s.members.crew, s.params, {
+			method: 'POST',
+			json: { type: 'spraying', startedAt: hoursAgo(3), endedAt: hoursAgo(2), laneIndexes: [0, 1, 2], products: [{ productId: s.products.herbicide, rate: 1.5, rateUnit: 'pt/ac' }] }
+		});
+		expect(answer.status).toBeGreaterThanOrEqual(500);
+		expect(await snapshot()).toEqual(before);
 	});
 });
