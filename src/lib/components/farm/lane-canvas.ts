@@ -46,15 +46,21 @@ export function addLaneCanvas<P>(Leaflet: L, map: LeafletMap, onclick: (lane: Ca
 		const pixelOrigin = map.getPixelOrigin();
 		const maxLat = 85.0511287798;
 		const d2r = Math.PI / 180;
-		projected = lanes.map((lane) => {
+		projected = [];
+		for (const lane of lanes) {
 			const g = lane.feature.geometry;
+			// A stored outline that is not a polygon is left off the map rather than stopping it.
+			if (!g || (g.type !== 'Polygon' && g.type !== 'MultiPolygon') || !Array.isArray(g.coordinates)) continue;
 			const polys: Position[][][] = g.type === 'Polygon' ? [g.coordinates] : g.coordinates;
 			const rings: Float64Array[] = [];
 			const box: [number, number, number, number] = [Infinity, Infinity, -Infinity, -Infinity];
 			for (const poly of polys) {
+				if (!Array.isArray(poly)) continue;
 				for (const ring of poly) {
+					if (!Array.isArray(ring)) continue;
 					const flat = new Float64Array(ring.length * 2);
 					for (let i = 0; i < ring.length; i++) {
+						if (!Array.isArray(ring[i])) continue;
 						const lat = Math.max(Math.min(maxLat, ring[i][1]), -maxLat);
 						const sin = Math.sin(lat * d2r);
 						const x = scale * (0.5 + ring[i][0] / 360) - pixelOrigin.x;
@@ -69,8 +75,8 @@ export function addLaneCanvas<P>(Leaflet: L, map: LeafletMap, onclick: (lane: Ca
 					rings.push(flat);
 				}
 			}
-			return { lane, rings, box };
-		});
+			if (Number.isFinite(box[0]) && Number.isFinite(box[3])) projected.push({ lane, rings, box });
+		}
 	};
 
 	const draw = () => {
