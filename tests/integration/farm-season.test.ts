@@ -177,6 +177,20 @@ describe('season summary', () => {
 		expect(cornOnCorn).toBeLessThan(0.01);
 	});
 
+	it('a plan with a broken stored lane still answers: the field is left out of the rotation and named', async () => {
+		const s = await setup();
+		await db()('plan_lanes').where({ plan_id: s.a2026.id, lane_index: 2 }).update({ geometry: JSON.stringify({ type: 'Polygon', coordinates: [] }) });
+		const summary = await seasonSummaryJson(event(s.members.owner, `${base(s.farm.id, 2026)}/summary`, params(s.farm.id, 2026)));
+		expect(summary.status).toBe(200);
+		const body = await summary.json();
+		expect(body.rotationSkipped).toEqual(['North strips']);
+		expect(body.rotation).toEqual([]);
+		const season = await seasonJson(event(s.members.owner, base(s.farm.id, 2026), params(s.farm.id, 2026)));
+		expect(season.status).toBe(200);
+		const geo = await (await seasonLanes(event(s.members.owner, `${base(s.farm.id, 2026)}/lanes.geojson`, params(s.farm.id, 2026)))).json();
+		expect(geo.features.length).toBe(s.a2026.lanes.length + s.b2026.lanes.length);
+	});
+
 	it('lane records list what was logged on the lane, newest first, with product names as recorded', async () => {
 		const s = await setup();
 		const [product] = await db()('products').insert({ farm_id: s.farm.id, name: 'residual herbicide A', kind: 'herbicide', unit: 'pt', rei_hours: 12 }).returning('id');
