@@ -3,7 +3,10 @@
 import { describe, expect, it } from 'vitest';
 import { db } from '$lib/server/db';
 import type { SessionUser } from '$lib/server/auth';
-import { hashToken, visitorTour } from '$lib/server/tours';
+import sharp from 'sharp';
+import { hashToken, visitorPhoto, visitorTour } from '$lib/server/tours';
+import { POST as photoRoute } from '../../src/routes/api/farms/[farmId]/tours/[tourId]/stops/[stop]/photos/+server';
+import { GET as sharePhotoRoute } from '../../src/routes/share/[token]/photos/[photo]/+server';
 import { GET as listRoute, POST as createRoute } from '../../src/routes/api/farms/[farmId]/tours/+server';
 import { DELETE as revokeRoute } from '../../src/routes/api/farms/[farmId]/tours/[tourId]/+server';
 import { GET as acreageRoute } from '../../src/routes/api/farms/[farmId]/reports/acreage/+server';
@@ -171,5 +174,55 @@ describe('share links', () => {
 		// The link is no session: the farm's API stays closed to its holder.
 		expect((await acreageRoute(routeEvent(null, `/api/farms/${s.farm.id}/reports/acreage?season=2027`, { farmId: s.farm.id }))).status).toBe(401);
 		expect((await listRoute(routeEvent(null, `/api/farms/${s.farm.id}/tours`, { farmId: s.farm.id }))).status).toBe(401);
+	});
+});
+
+describe('stop photos', () => {
+	async function upload(user: SessionUser, farmId: string, tourId: string, stop: string, bytes: Uint8Array<ArrayBuffer>, name = 'stop.png') {
+		const form = new FormData();
+		form.append('photo', new File([bytes], name, { type: 'image/png' }));
+		const path = `/api/farms/${farmId}/tours/${tourId}/stops/${stop}/photos`;
+		const event = routeEvent(user, path, { farmId, tourId, stop });
+		event.request = new Request(new URL(`http://127.0.0.1${path}`), { method: 'POST', body: form });
+		return photoRoute(event);
+	}
+
+	it('a manager adds a photo to a stop; the visitor sees it through the link until it is revoked', async () => {
+		const s = await reportFarm();
+		const body = await (await create(s.members.owner, s.farm.id, tourBody([s.wide.id]))).json();
+		const token = tokenOf(body.url);
+		const png = new Uint8Array(await sharp({ create: { width: 64, height: 48, channels: 3, background: '#3f7d20' } }).png().toBuffer()) as Uint8Array<ArrayBuffer>;
+		const res = await upload(s.members.manager, s.farm.id, body.id, '2', png);
+		expect(res.status).toBe(201);
+		const [photo] = (await res.json()).photos;
+		expect([photo.width, photo.height]).toEqual([64, 48]);
+		const tour = (await openShare(token)).data.tour;
+		expect(tour.stops.map((x: { photos: { id: string }[] }) => x.photos.map((p) => p.id))).toEqual([[], [photo.id], []]);
+		const served = await visitorPhoto(token, photo.id, 'display');
+		expect(served?.contentType).toBe('image/png');
+		expect((await sharp(Buffer.from(served!.bytes)).metadata()).width).toBe(64);
+		const route = await sharePhotoRoute(routeEvent(null, `/share/${token}/photos/${photo.id}`, { token, photo: photo.id }));
+		expect([route.status, route.headers.get('content-type')]).toEqual([200, 'image/png']);
+		// The photo of one tour is not reachable through another tour's link.
+		const other = await (await create(s.members.owner, s.farm.id, tourBody([s.strips.id]))).json();
+		expect(await visitorPhoto(tokenOf(other.url), photo.id, 'display')).toBeNull();
+		await revoke(s.members.owner, s.farm.id, body.id);
+		expect(await visitorPhoto(token, photo.id, 'display')).toBeNull();
+		expect((await upload(s.members.owner, s.farm.id, body.id, '1', png)).status).toBe(400);
+	});
+
+	it('refuses other roles (403), other farms and missing stops (404), and files that are not pictures (400)', async () => {
+		const s = await reportFarm();
+		const body = await (await create(s.members.owner, s.farm.id, tourBody([s.wide.id]))).json();
+		const png = new Uint8Array(await sharp({ create: { width: 8, height: 8, channels: 3, background: '#000000' } }).png().toBuffer()) as Uint8Array<ArrayBuffer>;
+		expect((await upload(s.members.crew, s.farm.id, body.id, '1', png)).status).toBe(403);
+		const other = await makeFarmWithTeam();
+		expect((await upload(other.members.owner, other.farm.id, body.id, '1', png)).status).toBe(404);
+		expect((await upload(s.members.owner, s.farm.id, body.id, '4', png)).status).toBe(404);
+		expect((await upload(s.members.owner, s.farm.id, body.id, 'one', png)).status).toBe(404);
+		const text = await upload(s.members.owner, s.farm.id, body.id, '1', new TextEncoder().encode('not a picture'), 'notes.png');
+		expect(text.status).toBe(400);
+		expect((await text.json()).error.code).toBe('not_an_image');
+		expect(await db()('attachments').where({ farm_id: s.farm.id, entity: 'tour_stop' }).count({ n: '*' })).toEqual([{ n: 0 }]);
 	});
 });

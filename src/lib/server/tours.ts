@@ -6,7 +6,9 @@ import { z } from 'zod';
 import type { MultiPolygon, Polygon } from 'geojson';
 import { db } from './db';
 import { recordAudit } from './audit';
-import type { FarmAccess } from './access';
+import { isUuid, type FarmAccess } from './access';
+import { discardPhotos, photosOf, preparePhoto, recordPhotos, storePhotos } from './photos';
+import { fileStore } from './storage';
 import { invalid, notFound } from './errors';
 
 const text = (label: string, max: number) => z.string({ message: `Give the ${label}.` }).trim().max(max, `Use at most ${max} characters.`);
@@ -137,7 +139,7 @@ export interface VisitorTour {
 	date: string;
 	season: number;
 	fields: { name: string; boundary: Polygon | MultiPolygon; lanes: VisitorLane[] }[];
-	stops: { number: number; lng: number; lat: number; title: string; note: string }[];
+	stops: { number: number; lng: number; lat: number; title: string; note: string; photos: StopPhoto[] }[];
 }
 
 /**
@@ -165,8 +167,14 @@ export async function visitorTour(token: string, now = new Date()): Promise<Visi
 			.whereIn('p.field_id', tour.field_ids)
 			.orderBy('l.lane_index')
 			.select('p.field_id', 'l.lane_index', 'l.kind', 'l.crop', 'l.width_ft', 'l.geometry'),
-		db()('tour_stops').where({ tour_id: tour.id }).orderBy('position').select('position', 'lng', 'lat', 'title', 'note')
+		db()('tour_stops').where({ tour_id: tour.id }).orderBy('position').select('id', 'position', 'lng', 'lat', 'title', 'note')
 	]);
+	const photos = await db()('attachments')
+		.where({ farm_id: tour.farm_id, entity: 'tour_stop' })
+		.whereIn('entity_id', stops.map((s) => s.id))
+		.whereNull('deleted_at')
+		.orderBy([{ column: 'created_at' }, { column: 'id' }])
+		.select('id', 'entity_id', 'width', 'height');
 	return {
 		title: tour.title,
 		date: tour.day,
@@ -178,6 +186,79 @@ export async function visitorTour(token: string, now = new Date()): Promise<Visi
 				.filter((l) => l.field_id === f.id)
 				.map((l) => ({ index: l.lane_index, kind: l.kind, crop: l.crop, widthFt: Number(l.width_ft), geometry: l.geometry }))
 		})),
-		stops: stops.map((s) => ({ number: s.position + 1, lng: Number(s.lng), lat: Number(s.lat), title: s.title, note: s.note }))
+		stops: stops.map((s) => ({
+			number: s.position + 1,
+			lng: Number(s.lng),
+			lat: Number(s.lat),
+			title: s.title,
+			note: s.note,
+			photos: photos.filter((p) => p.entity_id === s.id).map((p) => ({ id: p.id, width: p.width, height: p.height }))
+		}))
+	};
+}
+
+export interface StopPhoto {
+	id: string;
+	width: number | null;
+	height: number | null;
+}
+
+/**
+ * Adds photos to a stop (1-based number) of a tour whose link still works; the copies are resized
+ * and stripped of their location data by the photo module, and written before the rows.
+ */
+export async function addStopPhotos(access: FarmAccess, tourId: string, stopNumber: number, files: File[]): Promise<StopPhoto[]> {
+	const stop = await db()('tour_stops as s')
+		.join('tours as t', 't.id', 's.tour_id')
+		.where({ 't.id': tourId, 't.farm_id': access.farm.id, 's.position': stopNumber - 1 })
+		.first('s.id', 't.revoked_at');
+	if (!stop) throw notFound('tour stop');
+	if (stop.revoked_at) throw invalid('This tour link was revoked; make a new tour to share photos.');
+	if (files.length === 0) throw invalid('Choose at least one photo.', { photo: ['Choose a photo.'] });
+	const prepared = [];
+	for (const f of files) prepared.push(await preparePhoto(new Uint8Array(await f.arrayBuffer()), f.name || null));
+	const stored = await storePhotos(access.farm.id, prepared);
+	try {
+		await db().transaction(async (trx) => {
+			await recordPhotos(trx, { farmId: access.farm.id, fieldId: null, entity: 'tour_stop', entityId: stop.id, userId: access.user.id }, stored);
+			await recordAudit(trx, { farmId: access.farm.id, userId: access.user.id, entity: 'tour', entityId: tourId, action: 'add_photos', after: { stop: stopNumber, photos: stored.map((s) => s.id) } });
+		});
+	} catch (e) {
+		await discardPhotos(stored);
+		throw e;
+	}
+	return stored.map((s) => ({ id: s.id, width: s.width, height: s.height }));
+}
+
+/** A stop photo for a visitor holding a working link to its tour, else null. */
+export async function visitorPhoto(token: string, photoId: string, size: 'display' | 'thumb', now = new Date()): Promise<{ bytes: Uint8Array; contentType: string } | null> {
+	if (!TOKEN_FORMAT.test(token) || !isUuid(photoId)) return null;
+	const row = await db()('attachments as a')
+		.join('tour_stops as s', function () {
+			this.on('s.id', '=', 'a.entity_id').andOnVal('a.entity', '=', 'tour_stop');
+		})
+		.join('tours as t', 't.id', 's.tour_id')
+		.join('farms as f', 'f.id', 't.farm_id')
+		.where({ 'a.id': photoId, 't.token_hash': hashToken(token) })
+		.whereRaw('a.farm_id = t.farm_id')
+		.whereNull('a.deleted_at')
+		.whereNull('t.revoked_at')
+		.whereNull('f.deleted_at')
+		.where('t.expires_at', '>', now)
+		.first('a.storage_key', 'a.thumb_key', 'a.content_type');
+	if (!row) return null;
+	const bytes = await fileStore().get(size === 'thumb' && row.thumb_key ? row.thumb_key : row.storage_key);
+	return bytes ? { bytes, contentType: row.content_type } : null;
+}
+
+/** One tour with its stops and their photos, for the farm's managers. */
+export async function getTour(access: FarmAccess, tourId: string, now = new Date()) {
+	const tour = isUuid(tourId) ? (await listTours(access, now)).find((t) => t.id === tourId) : undefined;
+	if (!tour) throw notFound('tour');
+	const stops = await db()('tour_stops').where({ tour_id: tourId, farm_id: access.farm.id }).orderBy('position').select('id', 'position', 'lng', 'lat', 'title', 'note');
+	const photos = await photosOf(db(), access.farm.id, 'tour_stop', stops.map((s) => s.id));
+	return {
+		...tour,
+		stopList: stops.map((s) => ({ number: s.position + 1, lng: Number(s.lng), lat: Number(s.lat), title: s.title as string, note: s.note as string, photos: photos.get(s.id) ?? [] }))
 	};
 }
