@@ -4,6 +4,7 @@ import { db } from '$lib/server/db';
 import { savePlan } from '$lib/server/plans';
 import * as notesRoute from '../../src/routes/api/farms/[farmId]/fields/[fieldId]/seasons/[season]/scouting/+server';
 import * as noteRoute from '../../src/routes/api/farms/[farmId]/fields/[fieldId]/seasons/[season]/scouting/[noteId]/+server';
+import * as restoreRoute from '../../src/routes/api/farms/[farmId]/fields/[fieldId]/seasons/[season]/scouting/[noteId]/restore/+server';
 import { makeUser } from './helpers';
 import { call, farmWithPlan, photoForm, photoWithGps } from './scouting-setup';
 
@@ -172,6 +173,21 @@ describe('scouting notes API', () => {
 		expect((await call(noteRoute.GET, s.members.owner, noteParams)).status).toBe(404);
 		const kept = await db()('scouting_notes').where({ id: created.body.id }).first();
 		expect(kept.deleted_by).toBe(s.members.manager.id);
+
+		// Owners and managers list deleted notes and restore them; others may not.
+		expect((await call(notesRoute.GET, s.members.crew, params, { query: 'deleted=1' })).status).toBe(403);
+		const deleted = await call(notesRoute.GET, s.members.manager, params, { query: 'deleted=1' });
+		expect(deleted.body.notes.map((n: { id: string }) => n.id)).toEqual([created.body.id]);
+		expect(typeof deleted.body.notes[0].deletedAt).toBe('string');
+		expect((await call(restoreRoute.POST, s.members.crew, noteParams, { method: 'POST' })).status).toBe(403);
+		const restored = await call(restoreRoute.POST, s.members.owner, noteParams, { method: 'POST' });
+		expect(restored.status).toBe(200);
+		expect(restored.body.growthStage).toBe('V5');
+		expect(restored.body.version).toBe(3);
+		expect(restored.body.deletedAt).toBeUndefined();
+		expect((await call(restoreRoute.POST, s.members.owner, noteParams, { method: 'POST' })).status).toBe(404);
+		const actions = await db()('audit_log').where({ entity: 'scouting_note', entity_id: created.body.id }).orderBy('id').pluck('action');
+		expect(actions).toEqual(['create', 'update', 'delete', 'restore']);
 	});
 
 	it('keeps the lane as it was when the plan is laid out again', async () => {

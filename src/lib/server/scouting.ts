@@ -39,6 +39,8 @@ export interface ScoutingNote {
 	version: number;
 	createdAt: string;
 	updatedAt: string;
+	/** Set only on deleted notes, which owners and managers may list and restore. */
+	deletedAt?: string;
 	photos: PhotoSummary[];
 }
 
@@ -68,6 +70,7 @@ function toNote(r: Row, photos: PhotoSummary[]): ScoutingNote {
 		version: r.version,
 		createdAt: new Date(r.created_at).toISOString(),
 		updatedAt: new Date(r.updated_at).toISOString(),
+		...(r.deleted_at ? { deletedAt: new Date(r.deleted_at).toISOString() } : {}),
 		photos
 	};
 }
@@ -78,12 +81,12 @@ async function readableField(access: FarmAccess, fieldId: string) {
 	return getField(access, fieldId);
 }
 
-export async function listScoutingNotes(access: FarmAccess, fieldId: string, season: number): Promise<ScoutingNote[]> {
+export async function listScoutingNotes(access: FarmAccess, fieldId: string, season: number, opts: { deleted?: boolean } = {}): Promise<ScoutingNote[]> {
 	await readableField(access, fieldId);
-	const rows = await db()('scouting_notes')
-		.where({ farm_id: access.farm.id, field_id: fieldId, season })
-		.whereNull('deleted_at')
-		.orderBy([{ column: 'observed_at', order: 'desc' }, { column: 'id' }]);
+	const q = db()('scouting_notes').where({ farm_id: access.farm.id, field_id: fieldId, season });
+	if (opts.deleted) q.whereNotNull('deleted_at');
+	else q.whereNull('deleted_at');
+	const rows = await q.orderBy([{ column: 'observed_at', order: 'desc' }, { column: 'id' }]);
 	const photos = await photosOf(db(), access.farm.id, 'scouting_note', rows.map((r) => r.id));
 	return rows.map((r) => toNote(r, photos.get(r.id) ?? []));
 }
@@ -335,5 +338,17 @@ export async function deletePhoto(access: FarmAccess, photoId: string): Promise<
 		}
 		await trx('attachments').where({ id: photoId }).update({ deleted_at: trx.fn.now(), deleted_by: access.user.id });
 		await recordAudit(trx, { farmId: access.farm.id, userId: access.user.id, entity: photo.entity, entityId: photo.entity_id, action: 'remove_photo', before: { photo: photoId } });
+	});
+}
+
+/** Brings a deleted note back (owners and managers; the route checks the role). */
+export async function restoreScoutingNote(access: FarmAccess, fieldId: string, season: number, noteId: string): Promise<ScoutingNote> {
+	return db().transaction(async (trx) => {
+		if (!canSeeField(access, fieldId) || !isUuid(noteId)) throw notFound('deleted scouting note');
+		const row = await trx('scouting_notes').where({ id: noteId, farm_id: access.farm.id, field_id: fieldId, season }).whereNotNull('deleted_at').forUpdate().first();
+		if (!row) throw notFound('deleted scouting note');
+		await trx('scouting_notes').where({ id: noteId }).update({ deleted_at: null, deleted_by: null, version: row.version + 1, updated_by: access.user.id, updated_at: trx.fn.now() });
+		await recordAudit(trx, { farmId: access.farm.id, userId: access.user.id, entity: 'scouting_note', entityId: noteId, action: 'restore', before: { deletedAt: row.deleted_at } });
+		return getScoutingNote(access, fieldId, season, noteId, trx);
 	});
 }

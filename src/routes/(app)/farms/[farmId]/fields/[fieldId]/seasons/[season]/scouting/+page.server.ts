@@ -8,7 +8,7 @@ import { AppError, pageError } from '$lib/server/errors';
 import { getField } from '$lib/server/fields';
 import { getPlan } from '$lib/server/plans';
 import { photoFiles, readPhotoForm } from '$lib/server/photos';
-import { createScoutingNote, deleteScoutingNote, listScoutingNotes } from '$lib/server/scouting';
+import { createScoutingNote, deleteScoutingNote, listScoutingNotes, restoreScoutingNote } from '$lib/server/scouting';
 import { parseSeason } from '$lib/server/season';
 import { scoutingNoteFromForm, scoutingNoteSchema } from '$lib/schemas/scouting';
 
@@ -24,6 +24,7 @@ export const load: PageServerLoad = async (event) => {
 	const field = await getField(access, event.params.fieldId).catch(pageError);
 	const plan = await getPlan(access, field.id, season).catch((e) => (e instanceof AppError && e.status === 404 ? null : pageError(e)));
 	const notes = await listScoutingNotes(access, field.id, season).catch(pageError);
+	const deletedNotes = access.can('editPlans') ? await listScoutingNotes(access, field.id, season, { deleted: true }).catch(pageError) : [];
 	return {
 		field: { id: field.id, name: field.name, boundary: field.boundary },
 		season,
@@ -32,6 +33,7 @@ export const load: PageServerLoad = async (event) => {
 			lanes: plan.lanes.map((l) => ({ index: l.index, crop: l.crop, kind: l.kind, geometry: l.geometry, widthFt: l.widthFt, rows: l.rows }))
 		},
 		notes,
+		deletedNotes: deletedNotes.map((n) => ({ id: n.id, laneIndex: n.laneIndex, observedAt: n.observedAt, deletedAt: n.deletedAt ?? null })),
 		timeZone: access.farm.timeZone,
 		nowLocal: format(new TZDate(Date.now(), access.farm.timeZone), "yyyy-MM-dd'T'HH:mm"),
 		userId: access.user.id
@@ -85,5 +87,11 @@ export const actions: Actions = {
 			return pageError(e);
 		}
 		redirect(303, '?deleted=1');
+	},
+	restore: async (event) => {
+		const access = await requireMember(event, event.params.farmId, 'editPlans');
+		const noteId = String((await event.request.formData()).get('noteId') ?? '');
+		await restoreScoutingNote(access, event.params.fieldId, parseSeason(event.params.season), noteId).catch(pageError);
+		redirect(303, `?restored=1#note-${noteId}`);
 	}
 };

@@ -8,9 +8,11 @@ import { createScoutingNote, listScoutingNotes } from '$lib/server/scouting';
 import { parseSeason } from '$lib/server/season';
 import { scoutingNoteFromForm, scoutingNoteSchema } from '$lib/schemas/scouting';
 
+/** The season's notes, newest first; `?deleted=1` lists the deleted ones instead (owners and managers). */
 export const GET: RequestHandler = api(async (event) => {
-	const access = await requireMember(event, event.params.farmId, 'read');
-	const notes = await listScoutingNotes(access, event.params.fieldId, parseSeason(event.params.season));
+	const deleted = event.url.searchParams.get('deleted') === '1';
+	const access = await requireMember(event, event.params.farmId, deleted ? 'editPlans' : 'read');
+	const notes = await listScoutingNotes(access, event.params.fieldId, parseSeason(event.params.season), { deleted });
 	return json({ notes });
 });
 
