@@ -46,7 +46,7 @@ test('draw a field by clicking corners on the map, see its acres, save it', asyn
 test('import a KML and a zipped Shapefile, pick and name the fields', async ({ page }) => {
 	const { farmId } = await ownFarm(page, 'importer');
 	await page.goto(`/farms/${farmId}/fields/import`);
-	await page.getByLabel(/GeoJSON, KML or zipped Shapefile/).setInputFiles('tests/fixtures/import/two-fields.kml');
+	await page.getByLabel(/GeoJSON, KML, zipped Shapefile or ISO 11783-10 task data/).setInputFiles('tests/fixtures/import/two-fields.kml');
 	await page.getByRole('button', { name: 'Read the file' }).click();
 	await expect(page.getByRole('heading', { name: /Found 2 shapes/ })).toBeVisible();
 	await page.getByLabel('Import shape 2').uncheck();
@@ -56,7 +56,7 @@ test('import a KML and a zipped Shapefile, pick and name the fields', async ({ p
 	await expect(page.getByTestId('fields-table')).toContainText('From KML');
 
 	await page.goto(`/farms/${farmId}/fields/import`);
-	await page.getByLabel(/GeoJSON, KML or zipped Shapefile/).setInputFiles('tests/fixtures/import/utm15n-shapefile.zip');
+	await page.getByLabel(/GeoJSON, KML, zipped Shapefile or ISO 11783-10 task data/).setInputFiles('tests/fixtures/import/utm15n-shapefile.zip');
 	await page.getByRole('button', { name: 'Read the file' }).click();
 	await expect(page.getByRole('heading', { name: /Found \d+ shapes?/ })).toBeVisible();
 	const first = page.getByLabel('Name of shape 1');
@@ -66,7 +66,7 @@ test('import a KML and a zipped Shapefile, pick and name the fields', async ({ p
 
 	// A file that is not what it says is refused on the page, nothing stored.
 	await page.goto(`/farms/${farmId}/fields/import`);
-	await page.getByLabel(/GeoJSON, KML or zipped Shapefile/).setInputFiles({ name: 'not-a-zip.zip', mimeType: 'application/zip', buffer: Buffer.from('just some text') });
+	await page.getByLabel(/GeoJSON, KML, zipped Shapefile or ISO 11783-10 task data/).setInputFiles({ name: 'not-a-zip.zip', mimeType: 'application/zip', buffer: Buffer.from('just some text') });
 	await page.getByRole('button', { name: 'Read the file' }).click();
 	await expect(page.getByRole('alert')).toContainText('not a zip');
 });

@@ -118,7 +118,7 @@ test('hostile field, exclusion, crop and imported shape names show as plain text
 <kml xmlns="http://www.opengis.net/kml/2.2"><Document><Placemark><name>&lt;img src=x onerror=alert("kml")&gt;</name>
 <Polygon><outerBoundaryIs><LinearRing><coordinates>${boundary.coordinates[0].map(([x, y]) => `${x},${y},0`).join(' ')}</coordinates></LinearRing></outerBoundaryIs></Polygon>
 </Placemark></Document></kml>`;
-	await page.getByLabel(/GeoJSON, KML or zipped Shapefile/).setInputFiles({ name: 'hostile.kml', mimeType: 'application/vnd.google-earth.kml+xml', buffer: Buffer.from(kml) });
+	await page.getByLabel(/GeoJSON, KML, zipped Shapefile or ISO 11783-10 task data/).setInputFiles({ name: 'hostile.kml', mimeType: 'application/vnd.google-earth.kml+xml', buffer: Buffer.from(kml) });
 	await page.getByRole('button', { name: 'Read the file' }).click();
 	await expect(page.getByRole('heading', { name: 'Found 1 shape: choose and name the fields' })).toBeVisible();
 	await expect(page.getByLabel('Name of shape 1')).toHaveValue(SHAPE);

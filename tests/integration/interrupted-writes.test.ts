@@ -37,7 +37,7 @@ describe('a write cut off mid-transaction', () => {
 		const access = await requireMember(fakeEvent(members.owner, '/x', 'POST'), farm.id, 'editPlans');
 		await killConnectionOnAudit(farm.id);
 		const before = await snapshot();
-		const failed = await createField(access, { name: 'Cut off', boundary: rectangle(400, 300, -94.3, 43.7), exclusions: [] }).then(() => null, (e: Error) => e);
+		const failed = await createField(access, { name: 'Cut off', boundary: rectangle(400, 300, -94.3, 43.7), exclusions: [], farmNumber: null, tractNumber: null, fieldNumber: null, landlord: null, notes: null }).then(() => null, (e: Error) => e);
 		expect(failed?.message).toMatch(/terminat|Connection/i);
 		expect(await snapshot()).toEqual(before);
 		expect((await db().raw('select 1 as one')).rows[0].one).toBe(1);
@@ -46,7 +46,7 @@ describe('a write cut off mid-transaction', () => {
 	it('saves no part of a new plan: no plan row, no lanes, no audit row', async () => {
 		const { farm, members } = await makeFarmWithTeam();
 		const access = await requireMember(fakeEvent(members.owner, '/x', 'POST'), farm.id, 'editPlans');
-		const field = await createField(access, { name: 'Whole', boundary: rectangle(400, 300, -94.3, 43.7), exclusions: [] });
+		const field = await createField(access, { name: 'Whole', boundary: rectangle(400, 300, -94.3, 43.7), exclusions: [], farmNumber: null, tractNumber: null, fieldNumber: null, landlord: null, notes: null });
 		await killConnectionOnAudit(farm.id);
 		const before = await snapshot();
 		const failed = await savePlan(access, field.id, 2027, {
@@ -57,8 +57,9 @@ describe('a write cut off mid-transaction', () => {
 			offsetFt: 0,
 			headlandFt: 0,
 			assignments: [],
-			notes: null
-		} as Parameters<typeof savePlan>[3]).then(() => null, (e: Error) => e);
+			notes: null,
+			rebase: false
+		}).then(() => null, (e: Error) => e);
 		expect(failed?.message).toMatch(/terminat|Connection/i);
 		expect(await snapshot()).toEqual(before);
 		expect(await db()('plans').where({ field_id: field.id }).count('* as n').first()).toEqual({ n: 0 });

@@ -11,10 +11,10 @@ export interface FarmSummary {
 
 export async function createFarm(userId: string, name: string): Promise<FarmSummary> {
 	return db().transaction(async (trx) => {
-		const [farm] = await trx('farms').insert({ name: name.trim() }).returning(['id', 'name']);
+		const [farm] = await trx('farms').insert({ name: name.trim() }).returning(['id', 'name', 'time_zone']);
 		await trx('memberships').insert({ farm_id: farm.id, user_id: userId, role: 'owner' });
 		await recordAudit(trx, { farmId: farm.id, userId, entity: 'farm', entityId: farm.id, action: 'create', after: { name: farm.name } });
-		return { id: farm.id, name: farm.name, role: 'owner' as const };
+		return { id: farm.id, name: farm.name, role: 'owner' as const, timeZone: farm.time_zone };
 	});
 }
 

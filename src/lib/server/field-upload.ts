@@ -20,7 +20,7 @@ export async function readUploadedShapes(request: Request): Promise<ImportResult
 	}
 	const file = data.get('file');
 	if (!(file instanceof File) || file.size === 0) {
-		throw new AppError(400, 'Choose a GeoJSON, KML or zipped Shapefile to import.', 'no_file', { file: ['Choose a file.'] });
+		throw new AppError(400, 'Choose a GeoJSON, KML, zipped Shapefile or ISO 11783-10 task data file to import.', 'no_file', { file: ['Choose a file.'] });
 	}
 	if (file.size > IMPORT_LIMITS.maxUploadBytes) throw tooLarge(file.size);
 	try {
