@@ -316,6 +316,11 @@ async function main() {
 	}
 	console.log(`\n${os.cpus().length} cores, Node ${process.version}, ${CONNECTIONS} connections, ${SECONDS} s per target\n`);
 	console.log(table(rows));
+
+	if (process.env.BENCH_FARM_MAP !== '0') {
+		step('season map redraw in Chromium (scripts/bench-farm-map.ts; BENCH_FARM_MAP=0 skips it)');
+		console.log(run(process.execPath, ['--import', 'tsx', 'scripts/bench-farm-map.ts'], { ...dbEnv, BENCH_BASE_URL: origin }));
+	}
 }
 
 if (process.env.BENCH_BARE_FILE) {
