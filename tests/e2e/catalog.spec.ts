@@ -1,4 +1,5 @@
 import { expect, test } from '@playwright/test';
+import AxeBuilder from '@axe-core/playwright';
 import { CORN_8, SOYBEAN_8, eightyAcres, joinOwnFarm, ownFarm, ownField, ownPlan } from './own-farm';
 
 test('the owner adds a product and a variety through the pages; the form says what is wrong beside the input', async ({ page }) => {
@@ -149,4 +150,29 @@ test('the plan page refuses a soybean line on a corn lane with a visible message
 	const saved = await (await page.request.get(`/api/farms/${own.farmId}/fields/${fieldId}/plans/2027`)).json();
 	expect(saved.lanes.find((l: { index: number }) => l.index === firstCorn).assignment.variety).toBe('hybrid T');
 	expect(saved.lanes.find((l: { index: number }) => l.index === firstSoy).assignment).toBeNull();
+});
+
+test.describe('at phone width', () => {
+	test.use({ viewport: { width: 375, height: 812 } });
+
+	test('the product list, a product, the seed catalogue and a variety fit the screen, have no serious accessibility problems, and buttons are thumb-sized', async ({ page }) => {
+		const own = await ownFarm(page, 'catalog-phone');
+		const product = await (await page.request.post(`/api/farms/${own.farmId}/products`, {
+			data: { name: 'insecticide T with a rather long name for a narrow screen', kind: 'insecticide', unit: 'fl oz', epaRegNo: '1234-56-7890', restrictedUse: true, reiHours: 12, phiDays: 21, grazingDays: 7, activeIngredients: 'ingredient one; ingredient two' }
+		})).json();
+		const variety = await (await page.request.post(`/api/farms/${own.farmId}/varieties`, { data: { crop: 'corn', name: 'hybrid T', relativeMaturity: 104, seedsPerUnit: 80_000, traits: 'insect protected' } })).json();
+		expect((await page.request.post(`/api/farms/${own.farmId}/varieties/${variety.id}/lots`, { data: { lotNumber: 'T-1', germinationPct: 95, treatment: 'fungicide seed treatment' } })).status()).toBe(201);
+
+		for (const path of ['products', 'products/new', `products/${product.id}`, 'seeds', `seeds/${variety.id}`]) {
+			const res = await page.goto(`/farms/${own.farmId}/${path}`);
+			expect(res?.status(), path).toBe(200);
+			expect(await page.evaluate(() => document.documentElement.scrollWidth), path).toBeLessThanOrEqual(375);
+			const result = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa']).analyze();
+			const serious = result.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).slice(0, 3).join(', ')}`);
+			expect(serious, path).toEqual([]);
+			for (const button of await page.locator('main button:visible').all()) {
+				expect((await button.boundingBox())!.height, `${path}: ${await button.textContent()}`).toBeGreaterThanOrEqual(44);
+			}
+		}
+	});
 });
