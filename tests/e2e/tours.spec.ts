@@ -1,6 +1,7 @@
 // A manager makes a field-day tour on its page; a visitor with no account opens the link on a
 // phone-width screen and sees the map, lanes, stops and notes and nothing else; a revoked link is gone.
 import { expect, test } from '@playwright/test';
+import AxeBuilder from '@axe-core/playwright';
 import { CORN_8, SOYBEAN_8, eightyAcres, ownFarm, ownField, ownPlan } from './own-farm';
 
 test('a visitor opens a tour on a phone without an account; a revoked link answers 404', async ({ page, browser }) => {
@@ -56,6 +57,8 @@ test('a visitor opens a tour on a phone without an account; a revoked link answe
 	// Usable on the phone: the page does not scroll sideways.
 	expect(await phone.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(375);
 	expect(await visitor.cookies()).toEqual([]);
+	const axe = await new AxeBuilder({ page: phone }).withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa']).exclude('.leaflet-pane').analyze();
+	expect(axe.violations.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`)).toEqual([]);
 	// The link opens no API door.
 	expect((await phone.request.get(`/api/farms/${farm.farmId}/reports/acreage?season=${season}`)).status()).toBe(401);
 
