@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { laneAcresCovered, laneLengthFt, productTotal, rateBaseUnit, rateWarning, recordAcres } from '$lib/records/amounts';
+import { laneAcresCovered, laneLengthFt, productTotal, rateBaseUnit, rateWarning, recordAcres, unitMismatchWarning } from '$lib/records/amounts';
 
 // A 20-ft lane 1,320 ft long: 26,400 sq ft = 0.606061 ac (43,560 sq ft per acre, exact).
 const lane = { laneIndex: 4, acres: 26_400 / 43_560, widthFt: 20 };
@@ -46,5 +46,14 @@ describe('product totals', () => {
 		expect(rateWarning(60, 'gal/ac')).toBeNull();
 		expect(rateWarning(600, 'gal/ac')).not.toBeNull();
 		expect(rateWarning(350_000, 'seeds/ac')).toBe('350,000 seeds/ac is more than the usual most of 300,000 seeds/ac. Saved as entered; check the label and the number.');
+	});
+});
+
+describe('unit kinds', () => {
+	it('warns when a rate is in another kind of unit than the product, not when only the size differs', () => {
+		expect(unitMismatchWarning('UAN 32 %', 'gal', 'pt/ac')).toBeNull();
+		expect(unitMismatchWarning('starter', 'gal', 'lb/ac')).toBe('starter is measured in gal, but this rate is in lb/ac. Saved as entered; check the unit.');
+		expect(unitMismatchWarning('cover mix', 'lb', 'oz/ac')).toBeNull();
+		expect(unitMismatchWarning('seed', 'units', 'seeds/ac')).not.toBeNull();
 	});
 });

@@ -117,3 +117,18 @@ export function rateWarning(rate: number, rateUnit: string): string | null {
 	const max = PLAUSIBLE_MAX_PER_ACRE[base];
 	return rate > max ? `${rate.toLocaleString('en-US')} ${base}/ac is more than the usual most of ${max.toLocaleString('en-US')} ${base}/ac. Saved as entered; check the label and the number.` : null;
 }
+
+const FAMILY: Record<string, string> = { 'fl oz': 'volume', pt: 'volume', qt: 'volume', gal: 'volume', oz: 'weight', lb: 'weight', ton: 'weight' };
+
+/**
+ * A warning when the rate is measured in another kind of unit than the product (a liquid given in
+ * lb/ac): turning one into the other needs the product's density, so the record keeps the rate as
+ * given and asks for a check. Null when the kinds agree.
+ */
+export function unitMismatchWarning(productName: string, productUnit: string, rateUnit: string): string | null {
+	const base = rateBaseUnit(rateUnit);
+	if (!base) return null;
+	const a = FAMILY[productUnit] ?? productUnit;
+	const b = FAMILY[base] ?? base;
+	return a === b ? null : `${productName} is measured in ${productUnit}, but this rate is in ${base}/ac. Saved as entered; check the unit.`;
+}

@@ -5,7 +5,7 @@ import type { Knex } from 'knex';
 import { TZDate } from '@date-fns/tz';
 import { AppError, invalid } from './errors';
 import type { FarmAccess } from './access';
-import { laneAcresCovered, productTotal, rateWarning, type LanePart } from '../records/amounts';
+import { laneAcresCovered, productTotal, rateWarning, unitMismatchWarning, type LanePart } from '../records/amounts';
 import { rupMissing } from '../records/restricted-use';
 import { laneListText } from '../records/format';
 
@@ -136,7 +136,7 @@ export async function copyProducts(q: Knex, access: FarmAccess, lines: { product
 		.where({ farm_id: access.farm.id })
 		.whereIn('id', ids)
 		.whereNull('deleted_at')
-		.select('id', 'name', 'epa_reg_no', 'restricted_use', 'rei_hours', 'phi_days', 'grazing_days');
+		.select('id', 'name', 'unit', 'epa_reg_no', 'restricted_use', 'rei_hours', 'phi_days', 'grazing_days');
 	const byId = new Map(rows.map((r) => [r.id as string, r]));
 	const fields: Record<string, string[]> = {};
 	lines.forEach((l, i) => {
@@ -149,6 +149,8 @@ export async function copyProducts(q: Knex, access: FarmAccess, lines: { product
 		const t = productTotal(l.rate, l.rateUnit, acres);
 		const warning = rateWarning(l.rate, l.rateUnit);
 		if (warning) warnings.push({ field: `products.${i}.rate`, message: warning });
+		const mismatch = unitMismatchWarning(p.name, p.unit, l.rateUnit);
+		if (mismatch) warnings.push({ field: `products.${i}.rateUnit`, message: mismatch });
 		return {
 			position: i,
 			productId: l.productId,
