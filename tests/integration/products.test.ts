@@ -35,6 +35,10 @@ async function setup() {
 	return { farm, members, base, create };
 }
 
+/** What an action or load answered or threw (a redirect or an error), for assertions on its status. */
+// eslint-disable-next-line @typescript-eslint/no-explicit-any
+const settle = (p: unknown): Promise<any> => Promise.resolve(p).catch((e) => e);
+
 describe('POST /api/farms/:farmId/products', () => {
 	it('creates a product with its label data: 201, camelCase, numbers as numbers', async () => {
 		const { farm, members, create } = await setup();
@@ -213,7 +217,7 @@ describe('product pages', () => {
 		const { farm, members } = await setup();
 		const path = `/farms/${farm.id}/products/new`;
 		for (const role of ['crew', 'advisor', 'viewer'] as const) {
-			const refused = await actions.create(formEvent(members[role], path, { farmId: farm.id }, filled)).catch((e) => e);
+			const refused = await settle(actions.create(formEvent(members[role], path, { farmId: farm.id }, filled)));
 			expect(refused.status, role).toBe(403);
 		}
 		const bad = (await actions.create(formEvent(members.owner, path, { farmId: farm.id }, { ...filled, reiHours: 'twelve', phiDays: '-1' }))) as { status: number; data: { errors: Record<string, string[]>; values: { name: string } } };
@@ -222,7 +226,7 @@ describe('product pages', () => {
 		expect(bad.data.errors.phiDays).toEqual(['An interval cannot be negative.']);
 		expect(bad.data.values.name).toBe('post herbicide T');
 		expect(await db()('products').where({ farm_id: farm.id }).count('* as n').first()).toEqual({ n: 0 });
-		const made = await actions.create(formEvent(members.manager, path, { farmId: farm.id }, { ...filled, restrictedUse: 'on' })).catch((e) => e);
+		const made = await settle(actions.create(formEvent(members.manager, path, { farmId: farm.id }, { ...filled, restrictedUse: 'on' })));
 		expect(made.status).toBe(303);
 		const row = await db()('products').where({ farm_id: farm.id }).first();
 		expect([row.name, row.unit, row.restricted_use, Number(row.rei_hours), row.phi_days, row.grazing_days]).toEqual(['post herbicide T', 'fl oz', true, 4, 45, null]);
@@ -235,10 +239,10 @@ describe('product pages', () => {
 		const other = await setup();
 		const theirs = await (await other.create(other.members.owner, { name: 'theirs', kind: 'other', unit: 'lb' })).json();
 		const params = { farmId: farm.id, productId: theirs.id };
-		const missing = await page.load({ locals: { user: members.owner, session: null }, url: new URL(`http://127.0.0.1/farms/${farm.id}/products/${theirs.id}`), params, request: new Request('http://127.0.0.1/') } as never).catch((e) => e);
+		const missing = await settle(page.load({ locals: { user: members.owner, session: null }, url: new URL(`http://127.0.0.1/farms/${farm.id}/products/${theirs.id}`), params, request: new Request('http://127.0.0.1/') } as never));
 		expect(missing.status).toBe(404);
 		const path = `/farms/${farm.id}/products/${p.id}`;
-		await page.actions.save(formEvent(members.owner, path, { farmId: farm.id, productId: p.id }, { ...filled, name: p.name, version: '1' })).catch((e) => e);
+		await settle(page.actions.save(formEvent(members.owner, path, { farmId: farm.id, productId: p.id }, { ...filled, name: p.name, version: '1' })));
 		const stale = (await page.actions.save(formEvent(members.manager, path, { farmId: farm.id, productId: p.id }, { ...filled, name: p.name, reiHours: '99', version: '1' }))) as { status: number; data: { conflict: boolean } };
 		expect(stale.status).toBe(409);
 		expect(stale.data.conflict).toBe(true);

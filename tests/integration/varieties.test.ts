@@ -28,6 +28,10 @@ async function setup() {
 	return { farm, members, base, create, addLot };
 }
 
+/** What an action or load answered or threw (a redirect or an error), for assertions on its status. */
+// eslint-disable-next-line @typescript-eslint/no-explicit-any
+const settle = (p: unknown): Promise<any> => Promise.resolve(p).catch((e) => e);
+
 describe('POST /api/farms/:farmId/varieties', () => {
 	it('creates a variety: 201 and camelCase, numbers as numbers, no lots yet', async () => {
 		const { farm, members, create } = await setup();
@@ -171,13 +175,13 @@ describe('seed catalogue pages', () => {
 		const v = await (await create(members.owner, hybrid)).json();
 		const variety = { crop: 'corn', name: 'hybrid U', relativeMaturity: '98', seedsPerUnit: '80,000', traits: '', notes: '' };
 		for (const role of ['crew', 'advisor', 'viewer'] as const) {
-			expect((await list.actions.create(formEvent(members[role], `/farms/${farm.id}/seeds`, { farmId: farm.id }, variety)).catch((e) => e)).status, role).toBe(403);
-			expect((await one.actions.addLot(formEvent(members[role], `/farms/${farm.id}/seeds/${v.id}`, { farmId: farm.id, varietyId: v.id }, { lotNumber: 'X' })).catch((e) => e)).status, role).toBe(403);
+			expect((await settle(list.actions.create(formEvent(members[role], `/farms/${farm.id}/seeds`, { farmId: farm.id }, variety)))).status, role).toBe(403);
+			expect((await settle(one.actions.addLot(formEvent(members[role], `/farms/${farm.id}/seeds/${v.id}`, { farmId: farm.id, varietyId: v.id }, { lotNumber: 'X' })))).status, role).toBe(403);
 		}
 		const bad = (await list.actions.create(formEvent(members.owner, `/farms/${farm.id}/seeds`, { farmId: farm.id }, { ...variety, seedsPerUnit: 'a bag' }))) as { status: number; data: { errors: Record<string, string[]> } };
 		expect(bad.status).toBe(400);
 		expect(bad.data.errors.seedsPerUnit).toEqual(['Enter seeds per unit as a whole number, e.g. 80000.']);
-		const made = await list.actions.create(formEvent(members.manager, `/farms/${farm.id}/seeds`, { farmId: farm.id }, variety)).catch((e) => e);
+		const made = await settle(list.actions.create(formEvent(members.manager, `/farms/${farm.id}/seeds`, { farmId: farm.id }, variety)));
 		expect(made.status).toBe(303);
 		expect((await db()('varieties').where({ farm_id: farm.id, name: 'hybrid U' }).first()).seeds_per_unit).toBe(80_000);
 		const lot = await one.actions.addLot(formEvent(members.manager, `/farms/${farm.id}/seeds/${v.id}`, { farmId: farm.id, varietyId: v.id }, { lotNumber: 'U-1', germinationPct: '96', treatment: 'untreated', unitsOnHand: '' }));
@@ -185,7 +189,7 @@ describe('seed catalogue pages', () => {
 
 		const other = await setup();
 		const theirs = await (await other.create(other.members.owner, hybrid)).json();
-		const foreign = await one.load({ locals: { user: members.owner, session: null }, url: new URL(`http://127.0.0.1/farms/${farm.id}/seeds/${theirs.id}`), params: { farmId: farm.id, varietyId: theirs.id }, request: new Request('http://127.0.0.1/') } as never).catch((e) => e);
+		const foreign = await settle(one.load({ locals: { user: members.owner, session: null }, url: new URL(`http://127.0.0.1/farms/${farm.id}/seeds/${theirs.id}`), params: { farmId: farm.id, varietyId: theirs.id }, request: new Request('http://127.0.0.1/') } as never));
 		expect(foreign.status).toBe(404);
 	});
 });
