@@ -1,4 +1,5 @@
 import { expect, test } from '@playwright/test';
+import AxeBuilder from '@axe-core/playwright';
 import sharp from 'sharp';
 import { CORN_8, SOYBEAN_8, eightyAcres, joinOwnFarm, ownFarm, ownField, ownPlan } from './own-farm';
 
@@ -35,7 +36,7 @@ test('an advisor adds a scouting note with a photo by clicking a lane, another b
 		.jpeg()
 		.withExif({ IFD3: { GPSLatitudeRef: 'N', GPSLatitude: '43/1 44/1 0/1', GPSLongitudeRef: 'W', GPSLongitude: '94/1 20/1 0/1' } })
 		.toBuffer();
-	await page.getByLabel(/^Photos/).setInputFiles({ name: 'cutworm.jpg', mimeType: 'image/jpeg', buffer: jpeg });
+	await page.getByLabel(/^Photos \(JPEG/).setInputFiles({ name: 'cutworm.jpg', mimeType: 'image/jpeg', buffer: jpeg });
 	await expect(page.getByRole('img', { name: 'Preview of cutworm.jpg' })).toBeVisible();
 	await page.getByRole('button', { name: 'Save note' }).click();
 
@@ -87,4 +88,43 @@ test('an advisor adds a scouting note with a photo by clicking a lane, another b
 	expect((await refused.json()).error.code).toBe('forbidden');
 
 	for (const p of [owner, page, viewer.page]) await p.context().close();
+});
+
+test('the scouting page on a phone: fits 375 px, passes an accessibility scan, and refuses a non-image beside the photo input', async ({ browser }) => {
+	const context = await browser.newContext({ viewport: { width: 375, height: 812 } });
+	const page = await context.newPage();
+	const farm = await ownFarm(page, 'scout-phone');
+	const { boundary, guidance } = eightyAcres(-94.35, 43.75);
+	const fieldId = await ownField(page.request, farm.farmId, 'Phone field', boundary);
+	await ownPlan(page.request, farm.farmId, fieldId, 2026, { guidance, pattern: [CORN_8, SOYBEAN_8], offsetFt: 0, headlandFt: 0 });
+	const png = await sharp({ create: { width: 500, height: 300, channels: 3, background: { r: 120, g: 90, b: 40 } } }).png().toBuffer();
+	// SvelteKit refuses form-encoded posts from another origin, so a multipart API client names its origin.
+	const api = await page.request.post(`/api/farms/${farm.farmId}/fields/${fieldId}/seasons/2026/scouting`, {
+		headers: { origin: new URL(page.url()).origin },
+		multipart: { lane: '2', observedAt: '2026-07-01T10:00:00-05:00', growthStage: 'R1', plantsCounted: '120', photo: { name: 'pods.png', mimeType: 'image/png', buffer: png } }
+	});
+	expect(api.status(), await api.text()).toBe(201);
+	const body = await api.json();
+	expect(body.laneIndex).toBe(1);
+	expect(body.standCount.plantsPerAcre).toBe(120000);
+	expect(body.photos[0]).toMatchObject({ contentType: 'image/png', width: 500, height: 300 });
+
+	const url = `/farms/${farm.farmId}/fields/${fieldId}/seasons/2026/scouting`;
+	expect((await page.goto(url))?.status()).toBe(200);
+	await expect(page.getByTestId('scouting-note')).toHaveCount(1);
+	expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(375);
+	const result = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa']).analyze();
+	const serious = result.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).slice(0, 3).join(', ')}`);
+	expect(serious).toEqual([]);
+	for (const button of await page.locator('main button:visible').all()) {
+		expect((await button.boundingBox())!.height, (await button.textContent()) ?? '').toBeGreaterThanOrEqual(44);
+	}
+
+	await page.getByLabel('Lane number', { exact: true }).fill('4');
+	await page.getByLabel(/^Photos \(JPEG/).setInputFiles({ name: 'leaf.jpg', mimeType: 'image/jpeg', buffer: Buffer.from('just text, not a picture\n'.repeat(20)) });
+	await page.getByRole('button', { name: 'Save note' }).click();
+	// Beside the photo input (the same text also heads the form).
+	await expect(page.locator('p[role="alert"]').filter({ hasText: /^"leaf\.jpg" is not a JPEG, PNG or WebP photo \(judged by its content, not its name\)\.$/ })).toBeVisible();
+	await expect(page.getByTestId('scouting-note')).toHaveCount(1);
+	await context.close();
 });
