@@ -4,7 +4,7 @@ import { db } from '$lib/server/db';
 import { createField } from '$lib/server/fields';
 import { rectangle } from '../fixtures/rectangle';
 import { fileStore } from '$lib/server/storage';
-import { MAX_PHOTO_BYTES } from '$lib/server/photos';
+import { MAX_PHOTO_BYTES, preparePhoto } from '$lib/server/photos';
 import * as notesRoute from '../../src/routes/api/farms/[farmId]/fields/[fieldId]/seasons/[season]/scouting/+server';
 import * as noteRoute from '../../src/routes/api/farms/[farmId]/fields/[fieldId]/seasons/[season]/scouting/[noteId]/+server';
 import * as notePhotosRoute from '../../src/routes/api/farms/[farmId]/fields/[fieldId]/seasons/[season]/scouting/[noteId]/photos/+server';
@@ -81,6 +81,15 @@ describe('photo uploads', () => {
 		expect(png.body.photos[0]).toMatchObject({ contentType: 'image/png', width: 300, height: 200 });
 		const served = await call(photoRoute.GET, s.members.owner, { farmId: s.farm.id, photoId: png.body.photos[0].id });
 		expect(served.headers.get('content-type')).toBe('image/png');
+	});
+
+	it('refuses a picture with a side over 16,384 pixels, however few pixels it holds in all', async () => {
+		const strip = await sharp({ create: { width: 20_000, height: 2, channels: 3, background: '#888' } }).png().toBuffer();
+		const refused = await preparePhoto(new Uint8Array(strip), 'strip.png').catch((e) => e);
+		expect(refused.status).toBe(400);
+		expect(refused.message).toBe('The picture is 20000 × 2 pixels; each side may be at most 16,384 pixels.');
+		const wide = await sharp({ create: { width: 16_384, height: 2, channels: 3, background: '#888' } }).png().toBuffer();
+		expect((await preparePhoto(new Uint8Array(wide), 'wide.png')).width).toBe(1600);
 	});
 
 	it('refuses a photo over 15 MB with 413, and a 200 MB upload before reading it all', async () => {

@@ -46,6 +46,10 @@ describe('harvest entry problems', () => {
 		expect(harvestProblems({ ...ok, moisturePct: 40 }, [lane(0)])).toEqual({});
 		expect(Object.keys(harvestProblems({ ...ok, wetWeightLb: 0 }, [lane(0)]))).toEqual(['wetWeightLb']);
 		expect(Object.keys(harvestProblems({ ...ok, wetWeightLb: -5 }, [lane(0)]))).toEqual(['wetWeightLb']);
+		// Values a number column rounds to 0 lb or cannot hold are refused before they reach the database.
+		expect(harvestProblems({ ...ok, wetWeightLb: 6.4e-323 }, [lane(0)]).wetWeightLb).toEqual(['The weight must be between 1 lb and 10,000,000 lb; 6.4e-323 lb is outside it.']);
+		expect(Object.keys(harvestProblems({ ...ok, wetWeightLb: 1e15 }, [lane(0)]))).toEqual(['wetWeightLb']);
+		expect(harvestProblems({ ...ok, wetWeightLb: 1 }, [lane(0)])).toEqual({});
 		expect(harvestProblems({ ...ok, crop: 'soybean' }, [lane(0), lane(1, 'soybean')]).crop).toEqual(['Lane 1 is corn, not soybean.']);
 		expect(Object.keys(harvestProblems({ ...ok, lengthFt: 100 }, [lane(0)]))).toEqual(['lengthFt']);
 		expect(Object.keys(harvestProblems({ ...ok, crop: 'pasture' }, [lane(0, 'pasture')]))).toEqual(['crop']);

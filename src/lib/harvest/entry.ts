@@ -83,7 +83,10 @@ export function harvestProblems(input: HarvestInput | (Omit<HarvestInput, 'crop'
 	const fields: Record<string, string[]> = {};
 	const add = (k: string, m: string) => (fields[k] ??= []).push(m);
 	if (!isGrainCrop(input.crop)) add('crop', `"${input.crop}" is not a grain crop weighed for yield; choose one of ${GRAIN_CROPS.join(', ')}.`);
-	if (!Number.isFinite(input.wetWeightLb) || input.wetWeightLb <= 0) add('wetWeightLb', 'The weight must be more than 0 lb.');
+	// A weigh wagon or scale ticket reads whole pounds; 1 lb to 10 million lb spans a hand sample to a whole field.
+	if (!Number.isFinite(input.wetWeightLb) || input.wetWeightLb < 1 || input.wetWeightLb > 10_000_000) {
+		add('wetWeightLb', `The weight must be between 1 lb and 10,000,000 lb; ${input.wetWeightLb} lb is outside it.`);
+	}
 	if (!Number.isFinite(input.moisturePct) || input.moisturePct < HARVEST_MOISTURE.min || input.moisturePct > HARVEST_MOISTURE.max) {
 		add('moisturePct', `Moisture must be between ${HARVEST_MOISTURE.min} % and ${HARVEST_MOISTURE.max} %; ${input.moisturePct} % is outside it.`);
 	}

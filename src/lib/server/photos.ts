@@ -15,6 +15,7 @@ export const MAX_PHOTOS_PER_UPLOAD = 4;
 const DISPLAY_PX = 1600;
 const THUMB_PX = 400;
 // A small file can still unpack to a huge picture; 60 megapixels is far beyond any phone camera.
+const MAX_SIDE_PX = 16_384;
 const MAX_INPUT_PIXELS = 60_000_000;
 
 const FORMATS = { jpeg: { type: 'image/jpeg', ext: 'jpg' }, png: { type: 'image/png', ext: 'png' }, webp: { type: 'image/webp', ext: 'webp' } } as const;
@@ -96,6 +97,11 @@ export async function preparePhoto(bytes: Uint8Array, originalName: string | nul
 		const meta = await sharp(input, { limitInputPixels: MAX_INPUT_PIXELS }).metadata();
 		if (!meta.format || !(meta.format in FORMATS)) throw notAnImage(originalName, field);
 		format = meta.format as PhotoFormat;
+		// A long thin strip under the pixel limit still costs seconds to scale; no camera makes one.
+		if ((meta.width ?? 0) > MAX_SIDE_PX || (meta.height ?? 0) > MAX_SIDE_PX) {
+			const message = `The picture is ${meta.width} × ${meta.height} pixels; each side may be at most ${MAX_SIDE_PX.toLocaleString('en-US')} pixels.`;
+			throw new AppError(400, message, 'not_an_image', { [field]: [message] });
+		}
 	} catch (e) {
 		if (e instanceof AppError) throw e;
 		throw notAnImage(originalName, field);
