@@ -31,8 +31,9 @@ async function requirePort(p: number, what: string, variable: string) {
 
 const env: NodeJS.ProcessEnv = { ...process.env, HOST: host, PORT: String(port) };
 env.ORIGIN ??= `http://${host}:${port}`;
-// Boundary uploads may be up to 10 MB; the import code enforces that with a clear message.
-env.BODY_SIZE_LIMIT ??= '12M';
+// The largest body the app takes is a scouting upload of 4 photos of up to 15 MB each; every
+// upload path enforces its own smaller limit (boundaries 10 MB, yield files 11 MB) with a clear message.
+env.BODY_SIZE_LIMIT ??= '61M';
 const closers: (() => Promise<void>)[] = [];
 
 await requirePort(port, 'the web app', 'PORT');
