@@ -126,7 +126,7 @@ describe('yield-monitor import through the queue', () => {
 
 		// Next season the strips move 10 ft east: each new 20-ft lane stands half on last year's corn
 		// lane and half on its soybean lane, and the history follows the ground, not the lane number.
-		const [sw, , , nw] = (field.boundary as { coordinates: [number, number][][] }).coordinates[0];
+		const [sw, , , nw] = (field.boundary as unknown as { coordinates: [number, number][][] }).coordinates[0];
 		const next = await savePlan(access, field.id, 2027, {
 			guidance: { a: sw, b: nw }, pattern: [{ kind: 'crop', crop: 'soybean', rows: 8, rowSpacingIn: 30 }, { kind: 'crop', crop: 'corn', rows: 8, rowSpacingIn: 30 }],
 			offsetFt: 10, headlandFt: 0, variant: 'main', version: 0, assignments: [], notes: null, rebase: false
