@@ -7,6 +7,7 @@ import type { SessionUser } from '$lib/server/auth';
 import { GET as summaryRoute } from '../../src/routes/api/farms/[farmId]/reports/landlord/[fieldId]/+server';
 import { GET as pdfRoute } from '../../src/routes/api/farms/[farmId]/reports/landlord/[fieldId]/summary.pdf/+server';
 import { makeFarmWithTeam } from './helpers';
+import { createHarvestEntry } from '$lib/server/harvest';
 import { logOperation, reportFarm, routeEvent } from './report-setup';
 
 type Handler = (event: ReturnType<typeof routeEvent>) => Response | Promise<Response>;
@@ -52,6 +53,22 @@ describe('landlord summary', () => {
 		expect(uan.total).toBeCloseTo(15 * s.sidedress.acres, 3);
 		expect(JSON.stringify(body)).not.toContain('residual herbicide A');
 		expect(body.harvest).toEqual([]);
+	});
+
+	it('carries the field\u2019s harvest entries as bushels and bushels per acre by crop, JSON and PDF', async () => {
+		const s = await withRecords();
+		const [first, second] = s.corn;
+		const a = await createHarvestEntry(s.access, s.wide.id, 2027, { laneIndexes: [first], crop: 'corn', wetWeightLb: 6000, moisturePct: 19 });
+		const b = await createHarvestEntry(s.access, s.wide.id, 2027, { laneIndexes: [second], crop: 'corn', wetWeightLb: 5400, moisturePct: 16 });
+		const body = await (await get(summaryRoute, s.members.owner, s.farm.id, s.wide.id)).json();
+		const bushels = a.bushels + b.bushels;
+		const acres = a.harvestedAcres + b.harvestedAcres;
+		expect(body.harvest).toHaveLength(1);
+		expect(body.harvest[0]).toMatchObject({ crop: 'corn', entries: 2, standardMoisturePct: 15.5 });
+		expect(body.harvest[0].bushels).toBeCloseTo(bushels, 1);
+		expect(body.harvest[0].bushelsPerAcre).toBeCloseTo(bushels / acres, 1);
+		const text = await pdfText(await get(pdfRoute, s.members.owner, s.farm.id, s.wide.id));
+		expect(text).toContain(`${body.harvest[0].bushelsPerAcre.toLocaleString('en-US')} bu/ac at 15.5 %`);
 	});
 
 	it('PDF names the field, its crops and the logged rate', async () => {
