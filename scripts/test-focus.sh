@@ -30,6 +30,7 @@ if [ "$what" = vitest ]; then
 	exec npx vitest run "$@"
 fi
 
+[ -x /usr/bin/chromium ] || apt_install chromium
 export PORT="${TEST_PORT:-3100}" HOST=127.0.0.1
 export SMTP_STANDIN_PORT="${TEST_SMTP_PORT:-2625}" MAILBOX_STANDIN_PORT="${TEST_MAILBOX_PORT:-2626}" TILE_STANDIN_PORT="${TEST_TILE_PORT:-8188}"
 export SMTP_URL="smtp://127.0.0.1:$SMTP_STANDIN_PORT" MAILBOX_URL="http://127.0.0.1:$MAILBOX_STANDIN_PORT"
