@@ -70,3 +70,24 @@ export async function setViewerPrivacy(farmId: string, userId: string, privacy: 
 		});
 	});
 }
+
+/** Units the farm's pages show numbers in. Stored values stay in US customary units. */
+export async function setFarmUnits(farmId: string, userId: string, units: 'us' | 'metric') {
+	await db().transaction(async (trx) => {
+		const before = await trx('farms').where({ id: farmId }).forUpdate().first('units');
+		await trx('farms').where({ id: farmId }).update({ units, updated_at: trx.fn.now() });
+		await recordAudit(trx, { farmId, userId, entity: 'farm', entityId: farmId, action: 'units', before: { units: before.units }, after: { units } });
+	});
+}
+
+/**
+ * The zone the farm's days and clock times are shown in. Records keep the instants they were
+ * given, so only how they read changes; nothing stored is rewritten.
+ */
+export async function setFarmTimeZone(farmId: string, userId: string, timeZone: string) {
+	await db().transaction(async (trx) => {
+		const before = await trx('farms').where({ id: farmId }).forUpdate().first('time_zone');
+		await trx('farms').where({ id: farmId }).update({ time_zone: timeZone, updated_at: trx.fn.now() });
+		await recordAudit(trx, { farmId, userId, entity: 'farm', entityId: farmId, action: 'time_zone', before: { timeZone: before.time_zone }, after: { timeZone } });
+	});
+}

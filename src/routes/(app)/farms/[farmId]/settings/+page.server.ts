@@ -3,12 +3,22 @@ import { message, superValidate } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
 import type { Actions, PageServerLoad } from './$types';
 import { farmNameSchema } from '$lib/schemas/account';
+import { farmTimeZoneSchema, farmUnitsSchema } from '$lib/schemas/farm-settings';
 import { requireMember } from '$lib/server/access';
-import { deleteFarm, getViewerPrivacy, renameFarm, setViewerPrivacy } from '$lib/server/farms';
+import { deleteFarm, getViewerPrivacy, renameFarm, setFarmTimeZone, setFarmUnits, setViewerPrivacy } from '$lib/server/farms';
+import { timeZones } from '$lib/time-zones';
 
 export const load: PageServerLoad = async (event) => {
 	const access = await requireMember(event, event.params.farmId, 'manageFarm');
-	return { form: await superValidate({ name: access.farm.name }, zod4(farmNameSchema)), privacy: await getViewerPrivacy(access.farm.id) };
+	const zones = timeZones();
+	return {
+		form: await superValidate({ name: access.farm.name }, zod4(farmNameSchema)),
+		unitsForm: await superValidate({ units: access.farm.units }, zod4(farmUnitsSchema), { id: 'units' }),
+		zoneForm: await superValidate({ timeZone: access.farm.timeZone }, zod4(farmTimeZoneSchema), { id: 'timeZone' }),
+		// A zone saved before this list existed still shows as chosen.
+		zones: zones.includes(access.farm.timeZone) ? zones : [access.farm.timeZone, ...zones],
+		privacy: await getViewerPrivacy(access.farm.id)
+	};
 };
 
 export const actions: Actions = {
@@ -18,6 +28,21 @@ export const actions: Actions = {
 		if (!form.valid) return fail(400, { form });
 		await renameFarm(access.farm.id, access.user.id, form.data.name);
 		return message(form, 'Farm name saved.');
+	},
+	units: async (event) => {
+		const access = await requireMember(event, event.params.farmId, 'manageFarm');
+		const unitsForm = await superValidate(event.request, zod4(farmUnitsSchema), { id: 'units' });
+		if (!unitsForm.valid) return fail(400, { unitsForm });
+		await setFarmUnits(access.farm.id, access.user.id, unitsForm.data.units);
+		return message(unitsForm, unitsForm.data.units === 'metric' ? 'Areas now show in hectares and lengths in metres.' : 'Areas now show in acres and lengths in feet.');
+	},
+	// Records store instants; only how their days and times read changes with the zone.
+	timeZone: async (event) => {
+		const access = await requireMember(event, event.params.farmId, 'manageFarm');
+		const zoneForm = await superValidate(event.request, zod4(farmTimeZoneSchema), { id: 'timeZone' });
+		if (!zoneForm.valid) return fail(400, { zoneForm });
+		await setFarmTimeZone(access.farm.id, access.user.id, zoneForm.data.timeZone);
+		return message(zoneForm, `Days and times now read in ${zoneForm.data.timeZone}.`);
 	},
 	// Unchecked boxes are simply absent from the post: absent means "keep hidden".
 	privacy: async (event) => {
