@@ -3,6 +3,8 @@
 // Needs the app running (BENCH_BASE_URL, default http://127.0.0.1:3000) on the database in
 // DATABASE_URL; makes its own user and farms there and deletes them afterwards.
 // Run: DATABASE_URL=… node --import tsx scripts/bench-farm-map.ts
+// To compare two builds in one run (same farms, same browser, alternating rounds), serve the other
+// build on the same database and give its address as BENCH_BEFORE_URL.
 import { randomUUID } from 'node:crypto';
 import knexFactory, { type Knex } from 'knex';
 import { chromium } from '@playwright/test';
@@ -10,6 +12,8 @@ import { hash } from '@node-rs/argon2';
 
 const BASE = process.env.BENCH_BASE_URL ?? 'http://127.0.0.1:3000';
 const STEPS = Number(process.env.BENCH_STEPS ?? 10);
+const BEFORE = process.env.BENCH_BEFORE_URL;
+const ROUNDS = Number(process.env.BENCH_ROUNDS ?? (BEFORE ? 2 : 1));
 const LANES = 100;
 const LANE_FT = 20;
 const FIELD_LENGTH_FT = 1320;
@@ -73,12 +77,17 @@ async function main() {
 		const big = await makeFarm(knex, user.id, 50);
 		const small = await makeFarm(knex, user.id, 5);
 		farms.push(big, small);
-		const context = await browser.newContext({ baseURL: BASE, viewport: { width: 1280, height: 900 } });
-		const signIn = await context.request.post('/api/session', { data: { email, password } });
-		if (!signIn.ok()) throw new Error(`Sign-in failed: ${signIn.status()} ${await signIn.text()}`);
-		const page = await context.newPage();
+		// Fresh statistics, as autovacuum would gather on a farm that grew over seasons: without
+		// them the planner joins 10,000 new lanes by a nested loop and the lane fetch is 20× slower.
+		await knex.raw('ANALYZE plans, plan_lanes');
+		const openPage = async (baseURL: string) => {
+			const context = await browser.newContext({ baseURL, viewport: { width: 1280, height: 900 } });
+			const signIn = await context.request.post('/api/session', { data: { email, password } });
+			if (!signIn.ok()) throw new Error(`Sign-in failed at ${baseURL}: ${signIn.status()} ${await signIn.text()}`);
+			return context.newPage();
+		};
 
-		const measure = async (farmId: string, polygons: number) => {
+		const measure = async (page: import('@playwright/test').Page, farmId: string, polygons: number) => {
 			await page.goto(`/farms/${farmId}?season=2025`);
 			const map = page.getByTestId('season-map');
 			await map.waitFor();
@@ -86,24 +95,40 @@ async function main() {
 			const times: number[] = [];
 			for (let i = 0; i < STEPS; i++) {
 				const label = i % 2 === 0 ? 'Next season (2026)' : 'Previous season (2025)';
-				const before = await map.getAttribute('data-draw-ms');
 				await page.evaluate(() => document.querySelector('[data-testid="season-map"]')?.removeAttribute('data-draw-ms'));
 				await page.getByRole('link', { name: label }).click();
 				await page.waitForFunction(() => document.querySelector('[data-testid="season-map"]')?.hasAttribute('data-draw-ms'), null, { timeout: 120_000 });
 				await page.waitForFunction((n) => document.querySelector('[data-testid="season-map"]')?.getAttribute('data-draw-count') === String(n), polygons, { timeout: 120_000 });
 				times.push(Number(await map.getAttribute('data-draw-ms')));
-				void before;
 			}
 			return times;
 		};
-		const baseline = await measure(small, 5 * LANES);
-		const full = await measure(big, 50 * LANES);
-		const mb = median(baseline);
-		const mf = median(full);
-		console.log(`Season map redraw per season step (Chromium, median of ${STEPS} steps, until the frame that shows it):`);
-		console.log(`  500 lane polygons (baseline): ${mb.toFixed(1)} ms   [${baseline.map((x) => x.toFixed(0)).join(', ')}]`);
-		console.log(`  5,000 lane polygons:          ${mf.toFixed(1)} ms   [${full.map((x) => x.toFixed(0)).join(', ')}]`);
-		console.log(`  ratio 5,000 / 500: ${(mf / mb).toFixed(2)}   goal: under 300 ms for 5,000 (${mf < 300 ? 'met' : 'NOT met'} on this machine now)`);
+
+		const builds = [...(BEFORE ? [{ name: 'before', url: BEFORE }] : []), { name: BEFORE ? 'after' : 'this build', url: BASE }];
+		const pages = await Promise.all(builds.map((b) => openPage(b.url)));
+		const results = builds.map(() => ({ baseline: [] as number[], full: [] as number[] }));
+		// Rounds alternate the builds, so a busy moment on the machine falls on both.
+		for (let round = 0; round < ROUNDS; round++) {
+			for (let b = 0; b < builds.length; b++) {
+				results[b].baseline.push(...(await measure(pages[b], small, 5 * LANES)));
+				results[b].full.push(...(await measure(pages[b], big, 50 * LANES)));
+			}
+		}
+		console.log(`Season map redraw per season step (Chromium, median of ${STEPS * ROUNDS} steps, until the frame that shows it):`);
+		const medians = builds.map((b, i) => {
+			const { baseline, full } = results[i];
+			const mb = median(baseline);
+			const mf = median(full);
+			console.log(`${b.name} (${b.url}):`);
+			console.log(`  500 lane polygons (baseline): ${mb.toFixed(1)} ms   [${baseline.map((x) => x.toFixed(0)).join(', ')}]`);
+			console.log(`  5,000 lane polygons:          ${mf.toFixed(1)} ms   [${full.map((x) => x.toFixed(0)).join(', ')}]`);
+			console.log(`  ratio 5,000 / 500: ${(mf / mb).toFixed(2)}   goal: under 300 ms for 5,000 (${mf < 300 ? 'met' : 'NOT met'} on this machine now)`);
+			return { mb, mf };
+		});
+		if (BEFORE) {
+			const [before, after] = medians;
+			console.log(`after ÷ before, same run: 5,000 lanes ${(after.mf / before.mf).toFixed(3)}×, 500 lanes ${(after.mb / before.mb).toFixed(3)}×`);
+		}
 	} finally {
 		await browser.close();
 		for (const id of farms) await knex('farms').where({ id }).delete();
