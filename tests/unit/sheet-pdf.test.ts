@@ -96,10 +96,10 @@ describe('renderSheetPdf: small sheet with a planter', () => {
 		const first = parsed.pages[0];
 		expect(first).toContain('STOP: 2 problems to fix before planting');
 		expect(first.indexOf('STOP: 2 problems')).toBeLessThan(first.indexOf('Lane map'));
-		const stopLines = parsed.flat.match(/Unit 12 has starter on over soybean \(lane 2, unit 12\)/g) ?? [];
-		expect(stopLines).toHaveLength(2);
-		expect(parsed.flat).toContain('STOP Unit 12 has starter on over soybean');
-		expect(parsed.flat).toContain('CHECK The last pass plants one lane only (lane 5)');
+		// In full in the STOP box; named again, with a pointer to the box, in the checks.
+		expect(parsed.flat).toContain('• Unit 12 has starter on over soybean');
+		expect(parsed.flat).toContain('STOP Unit 12 has starter on over soybean (see the STOP box on page 1)');
+		expect(parsed.flat).toContain('CHECK The last pass plants one lane only');
 		expect(parsed.flat.indexOf('STOP The planter is wider')).toBeLessThan(parsed.flat.indexOf('CHECK The last pass'));
 	});
 
@@ -143,17 +143,25 @@ describe('renderSheetPdf: small sheet with a planter', () => {
 	});
 });
 
-describe('renderSheetPdf: a 640-acre section of 264 lanes', () => {
+describe('renderSheetPdf: a 640-acre section of 264 lanes, full lists asked for', () => {
 	const sheet = buildSheet({ lanes: 264, lengthFt: 5280, wetSpotLanes: [100, 110] });
 	let parsed: ParsedPdf;
+	let short: ParsedPdf;
 
 	beforeAll(async () => {
-		parsed = await parsePdf(await renderSheetPdf(sheet));
+		parsed = await parsePdf(await renderSheetPdf(sheet, { appendix: true }));
+		short = await parsePdf(await renderSheetPdf(sheet));
 	});
 
 	it('flows onto several pages, each numbered "Page N of M" with the field and season', () => {
 		expect(parsed.pages.length).toBeGreaterThanOrEqual(8);
 		expectPageNumbers(parsed, 'North Strips · 2027');
+		// Without the appendix, lanes set up alike share a row and passes go four to a row.
+		expect(short.pages.length).toBeLessThanOrEqual(3);
+		expect(short.flat).toMatch(/Lanes 1, 3, 7 … 263 \(131\) corn 20 ft 8 × 30 in [\d.]+ hybrid A 34,000 Lanes 2, 4, 6 … 264 \(132\) soybean/);
+		expect(short.flat).toContain('Lane 5 corn 20 ft 8 × 30 in 2.42 hybrid A 34,000 check strip');
+		expect(short.flat).toMatch(/ 131 A 261–262 16 132 B 263–264 16 /);
+		expect(short.flat).not.toContain('Appendix: the full lists');
 	});
 
 	it('lists all 264 lanes once each', () => {

@@ -1,4 +1,5 @@
-// Long lane lists said once, compactly: "2, 4, 6 … 62". Pure.
+// Long lists said once, compactly: "31 corn lanes (2, 4, 6 … 62) border last season's corn". One
+// piece of code for the plan page, the compare page, the planning board and the cab sheet. Pure.
 
 /**
  * Lane numbers (1-based) as a short list: up to `max` numbers in full, otherwise the first three,
@@ -16,18 +17,33 @@ export function lanesWord(n: number): string {
 	return `${n} lane${n === 1 ? '' : 's'}`;
 }
 
+/** "1 pass" / "31 passes". */
+export function passesWord(n: number): string {
+	return `${n} pass${n === 1 ? '' : 'es'}`;
+}
+
+/** "lane 4" for one, "31 lanes (2, 4, 6 … 62)" for several; `what` goes before "lanes" ("soybean lanes"). */
+export function laneListWords(numbers: readonly number[], what = ''): string {
+	const sorted = [...new Set(numbers)].sort((a, b) => a - b);
+	const word = what ? `${what} ` : '';
+	return sorted.length === 1 ? `${word}lane ${sorted[0]}` : `${sorted.length} ${word}lanes (${compactNumbers(sorted)})`;
+}
+
 /** A warning about one lane (or none), of a kind, as the rotation and equipment checks give them. */
 export interface LaneWarning {
 	kind: string;
 	laneIndex: number | null;
 	message: string;
+	/** 'stop' keeps the planter from rolling; everything else asks for a look. Default 'warn'. */
+	severity?: 'stop' | 'warn';
 }
 
 export interface CondensedWarning {
 	kind: string;
+	severity: 'stop' | 'warn';
 	/** One line for the kind, lanes listed compactly. */
 	summary: string;
-	/** Every message of the kind, for an expandable full list. */
+	/** Every message of the kind, for an expandable full list (or the sheet's appendix). */
 	details: string[];
 	laneNumbers: number[];
 }
@@ -35,25 +51,83 @@ export interface CondensedWarning {
 /**
  * One line per kind of warning instead of one box per lane. Warnings without a lane keep their
  * own message; lane warnings of a kind become `describe(count, "2, 4, 6 … 62")`.
- * @example condenseWarnings(ws, { corn_borders_corn: (n, lanes) => `${n} corn lanes (${lanes}) border last season's corn: scout their edge rows for rootworm.` })
+ * @example condenseWarnings(ws, ROTATION_WORDS)
  */
 export function condenseWarnings(warnings: readonly LaneWarning[], describe: Record<string, (count: number, lanes: string) => string> = {}): CondensedWarning[] {
 	const out: CondensedWarning[] = [];
 	const byKind = new Map<string, LaneWarning[]>();
 	for (const w of warnings) {
+		const severity = w.severity ?? 'warn';
 		if (w.laneIndex === null) {
-			out.push({ kind: w.kind, summary: w.message, details: [w.message], laneNumbers: [] });
+			out.push({ kind: w.kind, severity, summary: w.message, details: [w.message], laneNumbers: [] });
 			continue;
 		}
-		const list = byKind.get(w.kind) ?? [];
+		const key = `${severity}|${w.kind}`;
+		const list = byKind.get(key) ?? [];
 		list.push(w);
-		byKind.set(w.kind, list);
+		byKind.set(key, list);
 	}
-	for (const [kind, list] of byKind) {
+	for (const list of byKind.values()) {
+		const { kind } = list[0];
 		const numbers = [...new Set(list.map((w) => (w.laneIndex as number) + 1))].sort((a, b) => a - b);
 		const lanes = compactNumbers(numbers);
 		const summary = list.length === 1 ? list[0].message : (describe[kind]?.(numbers.length, lanes) ?? `${lanesWord(numbers.length)} (${lanes}): ${list[0].message}`);
-		out.push({ kind, summary, details: list.map((w) => w.message), laneNumbers: numbers });
+		out.push({ kind, severity: list[0].severity ?? 'warn', summary, details: list.map((w) => w.message), laneNumbers: numbers });
 	}
-	return out;
+	return sortStopsFirst(out);
+}
+
+/** How the season-to-season checks (rotation-flags.ts) read when several lanes share one. */
+export const ROTATION_WORDS: Record<string, (count: number, lanes: string) => string> = {
+	corn_borders_corn: (n, lanes) => `${n} corn lanes (${lanes}) border last season's corn: scout their edge rows for rootworm.`
+};
+
+const PASS_PREFIX = /^Pass (\d+) \(from [AB]\): /;
+/** "lane 12 (soybean)" or "Lane 12 (corn)" or "lane 12" inside a message. */
+const LANE_WORD = /\b[Ll]ane (\d+)( \(([^)]*)\))?/g;
+
+/**
+ * Findings whose messages differ only in the pass and lane they name, said once: "31 passes
+ * (1, 2, 3 … 31): Nitrogen is on at row unit 9 over 31 soybean lanes (2, 4, 6 … 62) …". A
+ * message naming no pass and no lane, or one of a kind, stays word for word. STOP items first.
+ * @example condenseFindings(sheet.checks.map((c) => ({ ...c, kind: c.kind })))
+ */
+export function condenseFindings(findings: readonly LaneWarning[]): CondensedWarning[] {
+	interface Group { first: LaneWarning; template: string; crop: string | null; passes: number[]; lanes: number[]; details: string[] }
+	const groups = new Map<string, Group>();
+	findings.forEach((f, i) => {
+		const pass = PASS_PREFIX.exec(f.message);
+		const body = pass ? f.message.slice(pass[0].length) : f.message;
+		const lanes: number[] = [];
+		let crop: string | null = null;
+		let named = 0;
+		const template = body.replace(LANE_WORD, (_m, n: string, _p, what: string | undefined) => {
+			named += 1;
+			lanes.push(Number(n));
+			crop = what ?? null;
+			return '\u0000';
+		});
+		// Only a message naming one lane (and maybe a pass) can share a line with others.
+		const key = named === 1 || (named === 0 && pass) ? `${f.severity ?? 'warn'}|${f.kind}|${template}|${crop ?? ''}` : `single|${i}`;
+		const g = groups.get(key) ?? { first: f, template, crop, passes: [], lanes: [], details: [] };
+		if (pass) g.passes.push(Number(pass[1]));
+		g.lanes.push(...lanes);
+		g.details.push(f.message);
+		groups.set(key, g);
+	});
+	const out = [...groups.values()].map((g): CondensedWarning => {
+		const lanes = [...new Set(g.lanes)].sort((a, b) => a - b);
+		const base = { kind: g.first.kind, severity: g.first.severity ?? 'warn', details: g.details, laneNumbers: lanes };
+		if (g.details.length === 1) return { ...base, summary: g.first.message };
+		const passes = [...new Set(g.passes)].sort((a, b) => a - b);
+		const lead = passes.length > 1 ? `${passesWord(passes.length)} (${compactNumbers(passes)}): ` : passes.length === 1 ? `Pass ${passes[0]}: ` : '';
+		const laneText = lanes.length ? laneListWords(lanes, g.crop ?? '') : '';
+		const body = g.template.replace('\u0000', laneText);
+		return { ...base, summary: lead ? `${lead}${body}` : body.charAt(0).toUpperCase() + body.slice(1) };
+	});
+	return sortStopsFirst(out);
+}
+
+function sortStopsFirst(list: CondensedWarning[]): CondensedWarning[] {
+	return list.map((w, i) => ({ w, i })).sort((a, b) => (a.w.severity === b.w.severity ? a.i - b.i : a.w.severity === 'stop' ? -1 : 1)).map(({ w }) => w);
 }

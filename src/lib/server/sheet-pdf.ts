@@ -1,11 +1,13 @@
 // The cab seeding sheet as a printable PDF (US Letter, portrait, large type, black on white).
 import PDFDocument from 'pdfkit';
 import type { SheetData } from '../sheet/types';
+import { checkGroupsOf } from '../sheet/condensed';
 import { cropStyles, type CropStyle } from './sheet-pdf/crop-style';
 import { BOLD, REGULAR, glyphCoverage, loadSheetFonts } from './sheet-pdf/fonts';
 import { NO_PLANTER, drawFacts, drawNotice, drawStopBanner, drawTitle, sheetTitle } from './sheet-pdf/header';
 import { drawLaneMap } from './sheet-pdf/lane-map';
 import {
+	drawAppendix,
 	drawCautions,
 	drawChecks,
 	drawHazards,
@@ -22,12 +24,15 @@ export { NO_PLANTER } from './sheet-pdf/header';
 export interface SheetPdfOptions {
 	/** IANA zone for the printed date, e.g. "America/Chicago"; the server's zone when left out. */
 	timeZone?: string;
+	/** Add the full lists (every finding, lane and pass) after the two-sided sheet. */
+	appendix?: boolean;
 }
 
 /**
- * Renders the seeding sheet. Content order: header, STOP banner, lane map, lanes, row units,
- * passes, checks, hazards, quantities, sign-off line, cautions; every page carries the field,
- * season and "Page N of M" in its footer.
+ * Renders the seeding sheet: one sheet of paper, front and back, for fields up to 100 lanes.
+ * Content order: header, STOP banner, lane map, lanes, row units, passes, checks, hazards,
+ * quantities, sign-off line, cautions, then the appendix of full lists when asked; every page
+ * carries the field, season and "Page N of M" in its footer.
  *
  * @example
  * const pdf = await renderSheetPdf(sheet);
@@ -70,7 +75,7 @@ export async function renderSheetPdf(sheet: SheetData, options: SheetPdfOptions 
 		const styles = cropStyles(sheet.lanes);
 
 		drawTitle(w, sheet);
-		drawStopBanner(w, sheet.checks);
+		drawStopBanner(w, checkGroupsOf(sheet));
 		if (!sheet.equipment) drawNotice(w, NO_PLANTER);
 		drawTopBlock(w, sheet, styles, options.timeZone);
 		drawLanesTable(w, sheet, styles);
@@ -78,11 +83,12 @@ export async function renderSheetPdf(sheet: SheetData, options: SheetPdfOptions 
 			drawRowUnits(w, sheet.equipment);
 			drawPasses(w, sheet);
 		}
-		drawChecks(w, sheet);
+		drawChecks(w, sheet, { appendix: options.appendix });
 		drawHazards(w, sheet);
 		drawQuantities(w, sheet);
 		drawSignOff(w);
 		drawCautions(w, sheet);
+		if (options.appendix) drawAppendix(w, sheet, styles);
 		drawFooters(w, sheet);
 	} catch (error) {
 		doc.end();
@@ -97,8 +103,8 @@ export async function renderSheetPdf(sheet: SheetData, options: SheetPdfOptions 
 function drawTopBlock(w: SheetWriter, sheet: SheetData, styles: Map<string, CropStyle>, timeZone?: string): void {
 	const factsWidth = 262;
 	const gap = 14;
-	const mapHeight = 180;
-	w.ensure(mapHeight + 80);
+	const mapHeight = 80;
+	w.ensure(mapHeight + 40);
 	const top = w.y;
 	const factsBottom = drawFacts(w, sheet, { left: PAGE.left, top, width: factsWidth }, timeZone);
 	const mapLeft = PAGE.left + factsWidth + gap;

@@ -5,13 +5,14 @@ import { choosePlanter, listEquipment } from './equipment';
 import { invalid } from './errors';
 import { buildSheet, SheetError } from '../sheet/build';
 import type { SheetData } from '../sheet/types';
+import { catalogueForPlans } from './varieties';
 
 /** Everything the cab sheet needs, read through the access module and built by the pure builder. */
 export async function loadSheet(access: FarmAccess, fieldId: string, season: number, opts: { variant?: string; planterId?: string | null } = {}): Promise<SheetData> {
 	const field = await getField(access, fieldId);
 	const plan = await getPlan(access, field.id, season, opts.variant);
 	const outline = await getBoundaryVersion(access, field.id, plan.boundaryVersion);
-	const equipment = await listEquipment(access);
+	const [equipment, catalogue] = await Promise.all([listEquipment(access), catalogueForPlans(access)]);
 	const planter = choosePlanter(equipment, opts.planterId);
 	try {
 		return buildSheet({
@@ -22,7 +23,8 @@ export async function loadSheet(access: FarmAccess, fieldId: string, season: num
 			plan,
 			outline,
 			planter,
-			otherImplements: equipment.filter((e) => e.id !== planter?.id)
+			otherImplements: equipment.filter((e) => e.id !== planter?.id),
+			catalogue
 		});
 	} catch (e) {
 		if (e instanceof SheetError) throw invalid(e.message);

@@ -15,7 +15,11 @@ import {
 	seedQuantities,
 	type LineRate
 } from '../equipment/index';
-import { toSheetChecks, toSheetPasses, toSheetQuantities, toSheetSeedQuantities } from './passes';
+import { toSheetChecks, toSheetPasses, toSheetQuantities, toSheetSeedQuantities, type SheetVariety } from './passes';
+import { fitGroups, sheetCheckGroups } from './condensed';
+import { condenseFindings } from '../farm/condense';
+import { withCatalogueUnits, type CatalogueVariety } from '../catalog/variety-check';
+import type { VarietyQuantity } from '../equipment/index';
 
 export const SHEET_CAUTIONS = [
 	'The label is the law: read and follow every seed-treatment, fertilizer and pesticide label, including restricted-entry and grazing intervals. Rates on this sheet are what the farm entered; they are not recommendations.',
@@ -43,6 +47,8 @@ export interface SheetSource {
 	outline: { boundary: Polygon | MultiPolygon; exclusions: { name: string; kind: string; geometry: Polygon | MultiPolygon }[] };
 	planter: Equipment | null;
 	otherImplements: Equipment[];
+	/** The farm's seed catalogue: its seeds per unit replace the per-crop preset, as on the plan page. */
+	catalogue?: readonly CatalogueVariety[];
 }
 
 export class SheetError extends Error {}
@@ -58,8 +64,18 @@ function hazards(src: SheetSource): string[] {
 	return out;
 }
 
+/** Seed lines with the catalogue's seeds per unit where the variety is in it (bags follow). */
+function catalogued(src: SheetSource, varieties: readonly VarietyQuantity[]): SheetVariety[] {
+	if (!src.catalogue?.length) return [...varieties];
+	return withCatalogueUnits(varieties, src.catalogue).map(({ fromCatalogue, ...v }, i) =>
+		fromCatalogue && v.seedsPerUnit !== null && v.seedsPerUnit !== varieties[i].seedsPerUnit && v.unitsExact !== null
+			? { ...v, seedsPerUnitBasis: 'seed catalogue', bags: Math.ceil(v.unitsExact / v.unitsPerBag - 1e-9) }
+			: { ...v, seedsPerUnitBasis: varieties[i].seedsPerUnitBasis }
+	);
+}
+
 function seedOnlyQuantities(src: SheetSource): SheetQuantity[] {
-	return toSheetSeedQuantities(seedQuantities(src.plan.lanes, src.plan.assignments).varieties);
+	return toSheetSeedQuantities(catalogued(src, seedQuantities(src.plan.lanes, src.plan.assignments).varieties));
 }
 
 function listOf(items: (string | number)[], max = 10): string {
@@ -127,18 +143,22 @@ export function buildSheet(src: SheetSource): SheetData {
 		equipment: null,
 		passes: [],
 		checks: [],
+		checkGroups: [],
 		hazards: hazards(src),
 		quantities: [],
 		cautions: SHEET_CAUTIONS
 	};
 
 	const implementsToCheck = src.otherImplements.filter((e) => e.kind !== 'planter');
-	const fitChecks: SheetCheck[] = implementsToCheck.length ? implementFitChecks(implementChecks(src.plan.lanes, implementsToCheck)) : [];
+	const fitReports = implementsToCheck.length ? implementChecks(src.plan.lanes, implementsToCheck) : [];
+	const fitChecks: SheetCheck[] = implementFitChecks(fitReports);
+	const sizes = src.plan.lanes.map((l) => ({ index: l.index, acres: l.acres, widthFt: l.widthFt }));
 
 	const planter = src.planter;
 	if (!planter?.planter) {
 		data.quantities = seedOnlyQuantities(src);
 		data.checks = fitChecks;
+		data.checkGroups = fitGroups(fitReports, sizes);
 		return data;
 	}
 	const setup = planter.planter;
@@ -157,7 +177,8 @@ export function buildSheet(src: SheetSource): SheetData {
 		const checks = checkPasses(plan.passes, plan.lanes, setup);
 		data.passes = toSheetPasses(plan.passes, setup);
 		data.checks = [...condenseChecks(toSheetChecks(checks)), ...fitChecks];
-		data.hazards.push(...plan.warnings);
+		data.checkGroups = sheetCheckGroups({ checks, passes: data.passes, lanes: sizes, fit: fitReports });
+		// plan.warnings (empty returns, rows left unplanted) are among the checks already.
 		const rates: Record<string, LineRate> = {};
 		for (const line of setup.fertilizerLines) {
 			if (line.gallonsPerAcre) {
@@ -167,11 +188,14 @@ export function buildSheet(src: SheetSource): SheetData {
 				};
 			}
 		}
-		data.quantities = toSheetQuantities(seedAndFertilizerQuantities(plan.lanes, src.plan.assignments, setup, { rates, passes: plan.passes }));
+		const quantities = seedAndFertilizerQuantities(plan.lanes, src.plan.assignments, setup, { rates, passes: plan.passes });
+		data.quantities = toSheetQuantities({ ...quantities, varieties: catalogued(src, quantities.varieties) });
 	} catch (e) {
 		if (!(e instanceof EquipmentError)) throw e;
 		data.passes = [];
-		data.checks = [{ severity: 'stop', kind: 'other', message: `${planter.name}: ${e.message}`, laneIndex: null, unit: null }, ...fitChecks];
+		const cannot: SheetCheck = { severity: 'stop', kind: 'other', message: `${planter.name}: ${e.message}`, laneIndex: null, unit: null };
+		data.checks = [cannot, ...fitChecks];
+		data.checkGroups = [...condenseFindings([cannot]), ...fitGroups(fitReports, sizes)];
 		data.quantities = seedOnlyQuantities(src);
 	}
 	// Stop-level problems first: they decide whether the planter may roll.

@@ -35,12 +35,15 @@ export function toSheetChecks(checks: readonly EquipmentCheck[]): SheetCheck[] {
 	return checks.map((c) => ({ severity: c.severity, kind: c.kind, message: c.message, laneIndex: c.laneIndex, unit: c.unit }));
 }
 
+/** A seed line whose seeds per unit may come from the farm's seed catalogue. */
+export type SheetVariety = Omit<VarietyQuantity, 'seedsPerUnitBasis'> & { seedsPerUnitBasis: VarietyQuantity['seedsPerUnitBasis'] | 'seed catalogue' };
+
 /**
  * The amounts as the seeding sheet prints them.
  *
  * @example toSheetQuantities(q)[0] // { label: 'Corn — hybrid A', amount: '34.0 units (2,720,000 seeds)', detail: '…' }
  */
-export function toSheetQuantities(q: FieldQuantities): SheetQuantity[] {
+export function toSheetQuantities(q: Omit<FieldQuantities, 'varieties'> & { varieties: readonly SheetVariety[] }): SheetQuantity[] {
 	const seed = toSheetSeedQuantities(q.varieties);
 	const fert = q.fertilizer.map((f): SheetQuantity => {
 		const n = f.poundsN === null ? '' : ` · ${formatNumber(f.poundsN, 1)} lb N`;
@@ -55,7 +58,7 @@ export function toSheetQuantities(q: FieldQuantities): SheetQuantity[] {
 }
 
 /** Seed lines of the sheet (also used alone when the farm has no planter). */
-export function toSheetSeedQuantities(varieties: readonly VarietyQuantity[]): SheetQuantity[] {
+export function toSheetSeedQuantities(varieties: readonly SheetVariety[]): SheetQuantity[] {
 	return varieties.map((v): SheetQuantity => {
 		const label = `${v.crop.charAt(0).toUpperCase()}${v.crop.slice(1)} — ${v.variety ?? 'variety not set'}`;
 		const seeds = `${formatNumber(Math.round(v.seeds))} seeds`;

@@ -2,6 +2,7 @@
 import type { MultiPolygon, Polygon } from 'geojson';
 import type { CheckFinding } from '../equipment/types';
 import type { LngLat } from '../geometry/index';
+import type { CondensedWarning } from '../farm/condense';
 
 export interface SheetLane {
 	index: number; // 0-based; shown to people as index + 1
@@ -59,7 +60,13 @@ export interface SheetData {
 	/** null when the farm has no planter yet: the sheet still lists lanes, widths, crops, acres. */
 	equipment: { name: string; widthFt: number; rowSpacingIn: number | null; units: { unit: number; seed: string | null; fertilizer: { name: string; on: boolean }[] }[] } | null;
 	passes: SheetPass[];
+	/** Every finding, as found: the appendix prints these in full. */
 	checks: SheetCheck[];
+	/**
+	 * One line per kind of problem with what it costs, STOP first: what the sheet itself prints.
+	 * The builder always sets it; without it the page and PDF condense `checks` (checkGroupsOf).
+	 */
+	checkGroups?: CondensedWarning[];
 	hazards: string[];
 	quantities: SheetQuantity[];
 	cautions: string[];

@@ -10,7 +10,7 @@ export function sheetTitle(data: Pick<SheetData, 'fieldName' | 'season'>): strin
 }
 
 export function drawTitle(w: SheetWriter, data: SheetData): void {
-	const title: TextStyle = { size: 22, bold: true };
+	const title: TextStyle = { size: 20, bold: true };
 	w.y += w.write(sheetTitle(data), PAGE.left, w.y, PAGE.contentWidth, title) + 6;
 }
 
@@ -21,38 +21,35 @@ export function drawFacts(
 	column: { left: number; top: number; width: number },
 	timeZone?: string
 ): number {
-	const facts: [string, string][] = [
-		['Farm', data.farmName],
-		['Field', data.fieldName],
-		['Season', String(data.season)],
-		['Plan', data.planName],
-		['Field acres', formatAcres(data.fieldAcres)],
-		['Planted acres', formatAcres(data.plantedAcres)],
-		['Lanes', String(data.lanes.length)],
-		['Headland', formatFeet(data.headlandFt)],
-		['Printed', formatPrintedAt(data.printedAt, timeZone)],
-		['Prepared by', data.preparedBy]
+	// Short facts share a line, so the block stays beside the lane map.
+	const facts: [string, string][][] = [
+		[['Farm', data.farmName]],
+		[['Field', data.fieldName], ['Season', String(data.season)]],
+		[['Plan', data.planName]],
+		[['Field acres', formatAcres(data.fieldAcres)], ['Planted acres', formatAcres(data.plantedAcres)]],
+		[['Lanes', String(data.lanes.length)], ['Headland', formatFeet(data.headlandFt)]],
+		[['Printed', formatPrintedAt(data.printedAt, timeZone)]],
+		[['Prepared by', data.preparedBy]]
 	];
-	const label: TextStyle = { size: 11 };
-	const value: TextStyle = { size: 12, bold: true };
-	const labelWidth = 88;
-	const valueWidth = column.width - labelWidth;
+	const value: TextStyle = { size: 11 };
 	let y = column.top + 2;
-	for (const [k, v] of facts) {
-		w.write(`${k}:`, column.left, y + 1, labelWidth, label);
-		y += w.write(v, column.left + labelWidth, y, valueWidth, value) + 3;
+	for (const row of facts) {
+		y += w.write(row.map(([k, v]) => `${k}: ${v}`).join(' · '), column.left, y, column.width, value) + 2;
 	}
 	return y;
 }
 
-/** Black band with the number of stop-level problems, then each one; nothing when there are none. */
-export function drawStopBanner(w: SheetWriter, checks: SheetCheck[]): void {
-	const stops = checks.filter((c) => c.severity === 'stop');
+/**
+ * Black band with the number of stop-level problems, then each one, said once per kind;
+ * nothing when there are none.
+ */
+export function drawStopBanner(w: SheetWriter, groups: NonNullable<SheetData['checkGroups']>): void {
+	const stops = groups.filter((c) => c.severity === 'stop');
 	if (stops.length === 0) return;
 	const band: TextStyle = { size: 16, bold: true, color: PAPER };
 	const item: TextStyle = { size: 12, bold: true };
 	const headline = `STOP: ${countOf(stops.length, 'problem')} to fix before planting`;
-	const lines = stops.map((c) => checkText(c));
+	const lines = stops.map((c) => c.summary);
 	const bandHeight = w.measure(headline, PAGE.contentWidth - 16, band) + 10;
 	const listHeight = lines.reduce((sum, t) => sum + w.measure(`• ${t}`, PAGE.contentWidth - 24, item) + 3, 0) + 8;
 	w.ensure(bandHeight + Math.min(listHeight, 200));

@@ -1,14 +1,21 @@
 // Body sections of the sheet, in print order after the header and map.
 import type { SheetData } from '../../sheet/types';
+import { compactNumbers } from '../../farm/condense';
+import { checkGroupsOf, FULL_LANE_LIST_MAX, laneGroupLabel, laneGroups, passSetup, usualSetup } from '../../sheet/condensed';
 import { drawSwatch, styleOf, type CropStyle } from './crop-style';
-import { checkText } from './header';
 import { drawTable, type TableCell } from './table';
 import { formatAcres, formatFeet, formatPopulation, laneNumbers } from './text';
 import { BODY, INK, PAGE, PAPER, SheetWriter, type TextStyle } from './writer';
 
 type Equipment = NonNullable<SheetData['equipment']>;
 
-export function drawLanesTable(w: SheetWriter, data: SheetData, styles: Map<string, CropStyle>): void {
+/** Lanes in one table: each lane on a small field (or when asked), otherwise lanes set up alike share a row. */
+export function drawLanesTable(w: SheetWriter, data: SheetData, styles: Map<string, CropStyle>, options: { everyLane?: boolean; title?: string } = {}): void {
+	if (data.lanes.length > 0 && !options.everyLane && data.lanes.length > FULL_LANE_LIST_MAX) {
+		drawLaneGroups(w, data, styles);
+		return;
+	}
+	const title = options.title ?? 'Lanes';
 	if (data.lanes.length === 0) {
 		w.heading('Lanes');
 		w.paragraph('This plan has no lanes.', { size: 12, bold: true });
@@ -44,7 +51,39 @@ export function drawLanesTable(w: SheetWriter, data: SheetData, styles: Map<stri
 			{ header: 'Trial', width: 66 }
 		],
 		rows,
-		{ title: 'Lanes', size: 11 }
+		{ title, size: 11 }
+	);
+}
+
+/** One row per lane setup: "Lanes 1, 3, 5 … 63 (32)", crop, width, rows, acres together, seed. */
+function drawLaneGroups(w: SheetWriter, data: SheetData, styles: Map<string, CropStyle>): void {
+	const rows = laneGroups(data.lanes).map((g): (TableCell | string)[] => {
+		const style = styleOf(styles, g.crop);
+		return [
+			{ text: laneGroupLabel(g), bold: true },
+			{ text: g.kind === 'crop' ? g.crop : `${g.kind}, ${g.crop}`, mark: { size: 10, draw: (x, y) => drawSwatch(w.doc, style, x, y, 10) } },
+			{ text: formatFeet(g.widthFt), bold: true },
+			g.rowSpacingIn ? `${g.rows} × ${g.rowSpacingIn} in` : String(g.rows),
+			formatAcres(g.acres),
+			g.variety ?? '',
+			formatPopulation(g.populationPerAcre),
+			g.trialLabel ?? ''
+		];
+	});
+	drawTable(
+		w,
+		[
+			{ header: 'Lanes', width: 112 },
+			{ header: 'Crop', width: 72 },
+			{ header: 'Width', width: 40, align: 'right' },
+			{ header: 'Rows', width: 56 },
+			{ header: 'Acres', width: 44, align: 'right' },
+			{ header: 'Variety', width: 110 },
+			{ header: 'Seeds/ac', width: 54, align: 'right' },
+			{ header: 'Trial', width: 52 }
+		],
+		rows,
+		{ title: `Lanes, ${data.lanes.length} in all: lanes set up alike share a row`, size: 10, padY: 2 }
 	);
 }
 
@@ -95,11 +134,11 @@ export function drawRowUnits(w: SheetWriter, equipment: Equipment): void {
 		w,
 		[
 			{ header: 'Units', width: 90 },
-			{ header: 'Seed', width: Math.max(150, 450 - lines.length * 80) },
-			...lines.map((name) => ({ header: name, width: 80, align: 'center' as const }))
+			{ header: 'Seed', width: Math.max(150, 450 - lines.length * 110) },
+			...lines.map((name) => ({ header: name, width: 110, align: 'center' as const }))
 		],
 		rows,
-		{ title, size: 12 }
+		{ title, size: 11, headerSize: 9, padY: 2 }
 	);
 }
 
@@ -121,7 +160,14 @@ export function withoutLanePrefix(summary: string, laneIndexes: number[]): strin
 	return same ? summary.slice(match[0].length) : summary;
 }
 
-export function drawPasses(w: SheetWriter, data: SheetData): void {
+/** Up to this many passes the list gives each pass a full line; more are set four to a row. */
+export const FULL_PASS_LIST_MAX = 24;
+
+export function drawPasses(w: SheetWriter, data: SheetData, options: { full?: boolean; title?: string } = {}): void {
+	if (data.passes.length > FULL_PASS_LIST_MAX && !options.full) {
+		drawPassGrid(w, data);
+		return;
+	}
 	if (data.passes.length === 0) {
 		w.heading('Passes');
 		w.paragraph('No passes: the planter does not cover any lane.', { size: 13, bold: true });
@@ -147,37 +193,118 @@ export function drawPasses(w: SheetWriter, data: SheetData): void {
 			{ header: 'Units on', width: 56, align: 'right' }
 		],
 		rows,
-		{ title: 'Passes, in driving order', size: 13, headerSize: 11, padY: 5 }
+		{ title: options.title ?? 'Passes, in driving order', size: 13, headerSize: 11, padY: 5 }
 	);
 }
 
-export function drawChecks(w: SheetWriter, data: SheetData): void {
+/**
+ * Many passes, four to a row (read across), each with its tick box, start end, lanes and units
+ * on. The setup most passes share is written once above; a pass set up otherwise says how.
+ */
+function drawPassGrid(w: SheetWriter, data: SheetData): void {
+	const passes = [...data.passes].sort((a, b) => a.number - b.number);
+	const usual = usualSetup(passes);
+	const box = 12;
+	// Passes set up otherwise are marked * and said below the grid, alike ones together.
+	const otherwise = new Map<string, number[]>();
+	const lanesText = passes.map((pass) => {
+		const setup = passSetup(pass.summary);
+		if (setup !== usual) otherwise.set(setup, [...(otherwise.get(setup) ?? []), pass.number]);
+		return `${laneNumbers(pass.laneIndexes) || 'none'}${setup === usual ? '' : ' *'}`;
+	});
+	// Column widths from what they hold (10-pt figures are about 5.8 pt wide), as many passes to a row as fit.
+	const lanesWidth = Math.max(36, Math.max(...lanesText.map((t) => t.length)) * 5.8 + 8);
+	const group = [
+		{ header: 'Pass', width: 38 },
+		{ header: 'From', width: 27 },
+		{ header: 'Lanes', width: lanesWidth },
+		{ header: 'On', width: 18, align: 'right' as const }
+	];
+	const groupWidth = group.reduce((sum, c) => sum + c.width, 0);
+	const perRow = Math.max(1, Math.min(4, Math.floor(PAGE.contentWidth / groupWidth)));
+	const cells = passes.map((pass, i): (TableCell | string)[] => [
+		{ text: String(pass.number), bold: true, mark: { size: box, draw: (x, y) => w.checkbox(x, y, box) } },
+		{ text: pass.startsAt, bold: true },
+		{ text: lanesText[i], bold: lanesText[i].endsWith('*') },
+		{ text: String(pass.unitsOn), bold: true }
+	]);
+	const rows: (TableCell | string)[][] = [];
+	for (let i = 0; i < cells.length; i += perRow) {
+		const row = cells.slice(i, i + perRow);
+		while (row.length < perRow) row.push(['', '', '', '']);
+		rows.push(row.flat());
+	}
+	w.heading('Passes, in driving order: read across, tick each when done', 70);
+	if (usual) w.paragraph(`Every pass unless marked *: ${usual}. "From" is the end the pass starts at; "On" is the row units planting.`, { size: 10, bold: true });
+	drawTable(w, Array.from({ length: perRow }, () => group).flat(), rows, { title: 'Passes, in driving order', size: 10, headerSize: 9, padY: 2, padX: 2, noHeading: true, breakable: true });
+	for (const [setup, numbers] of otherwise) {
+		w.paragraph(`* ${numbers.length === 1 ? `Pass ${numbers[0]}` : `Passes ${compactNumbers(numbers)}`}: ${setup}.`, { size: 10, bold: true });
+	}
+}
+
+/** One line per kind of problem with what it costs, STOP first; the appendix has every finding. */
+export function drawChecks(w: SheetWriter, data: SheetData, options: { appendix?: boolean } = {}): void {
 	w.heading('Checks');
-	if (data.checks.length === 0) {
+	const groups = checkGroupsOf(data);
+	if (groups.length === 0) {
 		w.paragraph('No problems found.', { size: 12, bold: true });
 		return;
 	}
-	const ordered = [...data.checks].sort((a, b) => (a.severity === b.severity ? 0 : a.severity === 'stop' ? -1 : 1));
-	const tagWidth = 58;
+	const tagWidth = 52;
+	const long = groups.some((g) => g.details.length > 1);
 	w.withPageStarter(
 		() => w.continuedTitle('Checks'),
 		() => {
-			for (const check of ordered) {
-				const stop = check.severity === 'stop';
-				const style: TextStyle = { size: 12, bold: stop };
-				const text = checkText(check);
-				const height = Math.max(w.measure(text, PAGE.contentWidth - tagWidth - 8, style), 16) + 4;
+			for (const group of groups) {
+				const stop = group.severity === 'stop';
+				const style: TextStyle = { size: stop ? 11 : 9.5, bold: stop };
+				// STOP items stand in full in the box at the top of page 1; here they are named once more.
+				const text = stop && !options.appendix ? `${firstWords(group.summary)} (see the STOP box on page 1)` : group.summary;
+				const height = Math.max(w.measure(text, PAGE.contentWidth - tagWidth - 8, style), 15) + 4;
 				w.ensure(height);
 				const tag = stop ? 'STOP' : 'CHECK';
-				if (stop) w.doc.rect(PAGE.left, w.y, tagWidth - 6, 16).fill(INK);
-				else w.doc.lineWidth(1.2).strokeColor(INK).rect(PAGE.left, w.y, tagWidth - 6, 16).stroke();
-				const tagStyle: TextStyle = { size: 11, bold: true, align: 'center', color: stop ? PAPER : INK };
+				if (stop) w.doc.rect(PAGE.left, w.y, tagWidth - 6, 15).fill(INK);
+				else w.doc.lineWidth(1.2).strokeColor(INK).rect(PAGE.left, w.y, tagWidth - 6, 15).stroke();
+				const tagStyle: TextStyle = { size: 10, bold: true, align: 'center', color: stop ? PAPER : INK };
 				w.writeLine(tag, PAGE.left, w.y + 2, tagStyle, tagWidth - 6);
 				w.write(text, PAGE.left + tagWidth, w.y + 1, PAGE.contentWidth - tagWidth - 8, style);
 				w.y += height;
 			}
 		}
 	);
+	if (long && !options.appendix) w.paragraph('Each lane and pass of these checks is listed in the appendix: print the sheet with "Print the full lists" ticked.', { size: 9 });
+}
+
+/** The start of a long line, cut at a word: "31 passes (1, 2, 3 … 31): Nitrogen (UAN 32 %) is on at row unit 9 …". */
+function firstWords(text: string, max = 64): string {
+	if (text.length <= max) return text.replace(/\.$/, '');
+	const cut = text.slice(0, max);
+	return `${cut.slice(0, cut.lastIndexOf(' '))} …`;
+}
+
+/**
+ * The full lists, printed only when asked: every finding of each check, every lane and every
+ * pass in full.
+ */
+export function drawAppendix(w: SheetWriter, data: SheetData, styles: Map<string, CropStyle>): void {
+	w.newPage();
+	w.paragraph('Appendix: the full lists', { size: 18, bold: true });
+	const listed = checkGroupsOf(data).filter((g) => g.details.length > 1);
+	if (listed.length) {
+		w.heading('Every finding of each check');
+		w.withPageStarter(
+			() => w.continuedTitle('Every finding of each check'),
+			() => {
+				for (const g of listed) {
+					w.paragraph(`${g.severity === 'stop' ? 'STOP' : 'CHECK'}: ${g.summary}`, { size: 11, bold: true });
+					for (const d of g.details) w.paragraph(`• ${d}`, { size: 9 }, 10);
+					w.gap(4);
+				}
+			}
+		);
+	}
+	if (data.lanes.length > FULL_LANE_LIST_MAX) drawLanesTable(w, data, styles, { everyLane: true });
+	if (data.equipment && data.passes.length > FULL_PASS_LIST_MAX) drawPasses(w, data, { full: true });
 }
 
 function drawList(w: SheetWriter, title: string, items: string[], empty: string): void {
@@ -185,7 +312,7 @@ function drawList(w: SheetWriter, title: string, items: string[], empty: string)
 	if (items.length === 0) w.paragraph(empty);
 	w.withPageStarter(
 		() => w.continuedTitle(title),
-		() => items.forEach((item) => w.paragraph(`• ${item}`, { size: 12 }, 4))
+		() => items.forEach((item) => w.paragraph(`• ${item}`, { size: 10 }, 4))
 	);
 }
 
@@ -201,12 +328,12 @@ export function drawQuantities(w: SheetWriter, data: SheetData): void {
 	drawTable(
 		w,
 		[
-			{ header: 'What', width: 150 },
-			{ header: 'Amount', width: 170 },
-			{ header: 'How it was worked out', width: 220 }
+			{ header: 'What', width: 140 },
+			{ header: 'Amount', width: 140 },
+			{ header: 'How it was worked out (arithmetic from entered rates)', width: 260 }
 		],
-		data.quantities.map((q) => [{ text: q.label, bold: true }, { text: q.amount, bold: true }, q.detail ?? '']),
-		{ title: 'Quantities', size: 11 }
+		data.quantities.map((q) => [{ text: q.label, bold: true, size: 9.5 }, { text: q.amount, bold: true, size: 9.5 }, { text: q.detail ?? '', size: 8.5 }]),
+		{ title: 'Quantities', size: 10, padY: 2 }
 	);
 }
 
@@ -214,10 +341,10 @@ export function drawQuantities(w: SheetWriter, data: SheetData): void {
 export function drawSignOff(w: SheetWriter): void {
 	const label: TextStyle = { size: 13, bold: true };
 	const caption: TextStyle = { size: 11 };
-	w.ensure(60);
-	w.gap(10);
+	w.ensure(50);
+	w.gap(6);
 	w.paragraph('Row units checked before the first pass:', label);
-	const lineY = w.y + 24;
+	const lineY = w.y + 20;
 	const nameEnd = PAGE.left + 280;
 	const dateStart = nameEnd + 70;
 	const dateEnd = PAGE.right - 70;
@@ -225,20 +352,20 @@ export function drawSignOff(w: SheetWriter): void {
 	w.doc.moveTo(PAGE.left, lineY).lineTo(nameEnd, lineY).moveTo(dateStart, lineY).lineTo(dateEnd, lineY).stroke();
 	w.writeLine('(name)', nameEnd + 6, lineY - 12, caption);
 	w.writeLine('(date/time)', dateEnd + 6, lineY - 12, caption);
-	w.y = lineY + 10;
+	w.y = lineY + 6;
 }
 
 export function drawCautions(w: SheetWriter, data: SheetData): void {
 	if (data.cautions.length === 0) return;
-	const style: TextStyle = { ...BODY, size: 11 };
+	const style: TextStyle = { ...BODY, size: 9.5 };
 	const texts = data.cautions.map((c) => w.clean(c));
 	const height = texts.reduce((sum, t) => sum + w.measure(t, PAGE.contentWidth - 16, style) + 4, 0) + 28;
 	w.ensure(Math.min(height, PAGE.bottom - PAGE.top));
 	w.gap(6);
 	const top = w.y;
 	const page = w.page;
-	w.write('Cautions', PAGE.left + 8, w.y + 6, PAGE.contentWidth - 16, { size: 12, bold: true });
-	w.y += 24;
+	w.write('Cautions', PAGE.left + 8, w.y + 5, PAGE.contentWidth - 16, { size: 12, bold: true });
+	w.y += 20;
 	for (const text of texts) w.paragraph(text, style, 8);
 	if (w.page === page) w.doc.lineWidth(1.5).strokeColor(INK).rect(PAGE.left, top, PAGE.contentWidth, w.y - top + 4).stroke();
 	w.y += 8;

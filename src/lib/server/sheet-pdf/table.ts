@@ -10,6 +10,8 @@ export interface TableColumn {
 export interface TableCell {
 	text: string;
 	bold?: boolean;
+	/** Type size for this cell when it differs from the table's. */
+	size?: number;
 	/** Drawn in a square at the left of the cell, before the text (crop swatch, tick box). */
 	mark?: { size: number; draw: (x: number, y: number) => void };
 }
@@ -20,6 +22,10 @@ export interface TableOptions {
 	headerSize?: number;
 	padX?: number;
 	padY?: number;
+	/** The caller has drawn the heading already; the title is still used on continued pages. */
+	noHeading?: boolean;
+	/** Let even a short table break after its first rows instead of moving whole to the next page. */
+	breakable?: boolean;
 }
 
 type Cell = TableCell | string;
@@ -39,7 +45,7 @@ export function drawTable(w: SheetWriter, columns: TableColumn[], rows: Cell[][]
 
 	const textWidth = (i: number, cell: TableCell) => widths[i] - 2 * padX - (cell.mark ? cell.mark.size + 4 : 0);
 	const cellHeight = (i: number, cell: TableCell, style: TextStyle) =>
-		Math.max(w.measure(cell.text, textWidth(i, cell), { ...style, bold: cell.bold ?? style.bold }), cell.mark?.size ?? 0);
+		Math.max(w.measure(cell.text, textWidth(i, cell), { ...style, size: cell.size ?? style.size, bold: cell.bold ?? style.bold }), cell.mark?.size ?? 0);
 
 	const headerHeight =
 		Math.max(...columns.map((c, i) => cellHeight(i, { text: c.header }, headerStyle))) + 2 * padY;
@@ -67,7 +73,9 @@ export function drawTable(w: SheetWriter, columns: TableColumn[], rows: Cell[][]
 
 	// a short table is kept whole on one page; a long one only keeps its first row with the header
 	const wholeHeight = headerHeight + rowHeights.reduce((sum, h) => sum + h, 0) + 4;
-	w.heading(options.title, wholeHeight <= 200 ? wholeHeight : headerHeight + (rowHeights[0] ?? 0) + 4);
+	const keep = wholeHeight <= 200 && !options.breakable ? wholeHeight : headerHeight + (rowHeights[0] ?? 0) + (rowHeights[1] ?? 0) + 4;
+	if (options.noHeading) w.ensure(keep);
+	else w.heading(options.title, keep);
 	drawHeader();
 	w.withPageStarter(continued, () => {
 		rows.forEach((row, r) => {
@@ -86,6 +94,7 @@ export function drawTable(w: SheetWriter, columns: TableColumn[], rows: Cell[][]
 				}
 				w.write(cell.text, x, top + padY, textWidth(i, cell), {
 					...bodyStyle,
+					size: cell.size ?? bodyStyle.size,
 					bold: cell.bold,
 					align: columns[i].align
 				});

@@ -2,15 +2,18 @@
 import { BOLD, REGULAR } from './fonts';
 import { sanitizeText } from './text';
 
-/** US Letter in points, half-inch margins; the bottom band holds the footer. */
+/**
+ * US Letter in points: half-inch side margins, 0.4 in at the top, the footer 0.35 in from the
+ * bottom edge (inside what office and farm-shop printers can print).
+ */
 export const PAGE = {
 	width: 612,
 	height: 792,
 	left: 36,
 	right: 576,
-	top: 36,
-	bottom: 724,
-	footerY: 740,
+	top: 29,
+	bottom: 738,
+	footerY: 754,
 	contentWidth: 540
 } as const;
 
@@ -127,14 +130,14 @@ export class SheetWriter {
 
 	/** Section heading kept on the same page as the next `keepWith` points of content. */
 	heading(text: string, keepWith = 40): void {
-		const style: TextStyle = { size: 14, bold: true };
+		const style: TextStyle = { size: 13, bold: true };
 		const height = this.measure(text, PAGE.contentWidth, style);
-		this.ensure(8 + height + 6 + keepWith);
-		if (this.y > PAGE.top) this.gap(8);
+		this.ensure(6 + height + 6 + keepWith);
+		if (this.y > PAGE.top) this.gap(6);
 		this.write(text, PAGE.left, this.y, PAGE.contentWidth, style);
-		this.y += height + 1;
+		this.y += height;
 		this.doc.lineWidth(1.5).strokeColor(INK).moveTo(PAGE.left, this.y).lineTo(PAGE.right, this.y).stroke();
-		this.y += 5;
+		this.y += 4;
 	}
 
 	/** Wrapped paragraph at the cursor, moved whole to the next page if it does not fit. */

@@ -1,0 +1,178 @@
+// What keeps the cab sheet to one sheet of paper: each kind of problem said once with what it
+// costs, lanes set up alike in one row, and the pass setup most passes share written once. The
+// page and the PDF both draw these; the full lists go to the appendix. Pure.
+import { compactNumbers, condenseFindings, laneListWords, passesWord, type CondensedWarning } from '../farm/condense';
+import type { EquipmentCheck, ImplementFitReport } from '../equipment/index';
+import type { SheetCheck, SheetLane, SheetPass } from './types';
+
+/** Up to this many lanes the sheet lists each lane; a larger field gets one row per lane setup. */
+export const FULL_LANE_LIST_MAX = 24;
+
+const FEET_PER_MILE = 5280;
+const SQFT_PER_ACRE = 43_560;
+
+interface LaneSize {
+	index: number;
+	acres: number;
+	widthFt: number;
+}
+
+/** Length of a lane along the A-B line, from its area and width (feet). */
+function laneLengthFt(lane: LaneSize): number {
+	return lane.widthFt > 0 ? (lane.acres * SQFT_PER_ACRE) / lane.widthFt : 0;
+}
+
+function miles(feet: number): string {
+	const mi = feet / FEET_PER_MILE;
+	if (mi < 0.95) return `${(Math.round(mi * 10) / 10).toFixed(1)} mile`;
+	const r = mi < 10 ? Math.round(mi * 10) / 10 : Math.round(mi);
+	return `${r.toLocaleString('en-US')} mile${r === 1 ? '' : 's'}`;
+}
+
+function acresText(acres: number): string {
+	return `${acres < 10 ? acres.toFixed(1) : Math.round(acres).toLocaleString('en-US')} ac`;
+}
+
+function feetText(value: number): string {
+	const r = Math.round(value * 100) / 100;
+	return `${r.toLocaleString('en-US')} ft`;
+}
+
+/**
+ * "All 32 passes run from A: 31 empty returns, about 16 miles of driving with the planter raised."
+ * One line for every pass that must start from the same end as the pass before it.
+ */
+export function driveBackGroup(drives: readonly Pick<EquipmentCheck, 'passNumber' | 'message'>[], passes: readonly Pick<SheetPass, 'number' | 'startsAt' | 'laneIndexes'>[], lanes: readonly LaneSize[]): CondensedWarning | null {
+	if (drives.length === 0) return null;
+	const byIndex = new Map(lanes.map((l) => [l.index, l]));
+	const byNumber = new Map(passes.map((p) => [p.number, p]));
+	const numbers = [...new Set(drives.map((d) => d.passNumber).filter((n): n is number => n !== null))].sort((a, b) => a - b);
+	// The empty run back is as long as the pass just driven.
+	const feet = numbers.reduce((sum, n) => {
+		const before = byNumber.get(n - 1) ?? byNumber.get(n);
+		const length = Math.max(0, ...(before?.laneIndexes ?? []).map((i) => laneLengthFt(byIndex.get(i) ?? { index: i, acres: 0, widthFt: 0 })));
+		return sum + length;
+	}, 0);
+	const ends = new Set(passes.map((p) => p.startsAt));
+	const end = passes[0]?.startsAt ?? 'A';
+	const other = end === 'A' ? 'B' : 'A';
+	const returns = `${numbers.length} empty return${numbers.length === 1 ? '' : 's'}`;
+	const cost = feet > 0 ? `, about ${miles(feet)} driven with the planter raised` : '';
+	const summary =
+		ends.size === 1 && numbers.length === passes.length - 1 && passes.length > 1
+			? `All ${passesWord(passes.length)} run from ${end}: ${returns}${cost} (from ${other}, seed boxes would run over the wrong crop).`
+			: `${numbers.length === 1 ? `Pass ${numbers[0]} starts` : `${passesWord(numbers.length)} (${compactNumbers(numbers)}) start`} from the same end as the pass before: ${returns}${cost} (from the other end, seed boxes would run over the wrong crop).`;
+	return { kind: 'drive_back_empty', severity: 'warn', summary, details: drives.map((d) => d.message), laneNumbers: [] };
+}
+
+/**
+ * Implements that do not fit lanes, one line per implement and kind of misfit, with what it
+ * costs: ground covered twice (a last pass overlapping the one before) or neighbouring lanes
+ * reached (an implement wider than the lane).
+ */
+export function fitGroups(reports: readonly ImplementFitReport[], lanes: readonly LaneSize[]): CondensedWarning[] {
+	const byIndex = new Map(lanes.map((l) => [l.index, l]));
+	const out: CondensedWarning[] = [];
+	for (const r of reports) {
+		const groups = new Map<string, ImplementFitReport['lanes']>();
+		for (const f of r.lanes.filter((x) => !x.fits)) {
+			const key = `${Math.round(f.laneWidthFt * 100)}|${f.passes}|${Math.round(f.overhangEachSideIn)}|${Math.round(f.lastPassCoverage * 100)}`;
+			groups.set(key, [...(groups.get(key) ?? []), f]);
+		}
+		for (const list of groups.values()) {
+			const f = list[0];
+			const overhang = f.overhangEachSideIn > 0;
+			const acres = list.reduce((sum, x) => {
+				const lane = byIndex.get(x.laneIndex);
+				if (!lane || !(x.laneWidthFt > 0)) return sum;
+				const extraFt = overhang ? (2 * x.overhangEachSideIn) / 12 : x.passes * r.implement.workingWidthFt - x.laneWidthFt;
+				return sum + (lane.acres * extraFt) / x.laneWidthFt;
+			}, 0);
+			const rest = f.message.slice(f.message.indexOf(': ') + 2);
+			const cost = overhang ? `about ${acresText(acres)} of neighbouring lanes under it in all` : `about ${acresText(acres)} covered twice`;
+			const details = list.map((x) => `${r.implement.name}: ${x.message}`);
+			const summary = list.length === 1 ? `${details[0]} (${cost}.)` : `${r.implement.name}: ${laneListWords(list.map((x) => x.laneIndex + 1))}, ${feetText(f.laneWidthFt)} each: ${rest.replace(/\.$/, '')}; ${cost}.`;
+			out.push({ kind: overhang ? 'overhang' : 'partial_pass', severity: 'warn', summary, details, laneNumbers: list.map((x) => x.laneIndex + 1) });
+		}
+	}
+	return out;
+}
+
+/**
+ * The sheet's problems, one line per kind, STOP first: the planter checks, the empty returns and
+ * the other implements' fit. `other` are findings made elsewhere (a planter that cannot be planned).
+ */
+export function sheetCheckGroups(input: {
+	checks: readonly EquipmentCheck[];
+	passes: readonly SheetPass[];
+	lanes: readonly LaneSize[];
+	fit: readonly ImplementFitReport[];
+	other?: readonly SheetCheck[];
+}): CondensedWarning[] {
+	const drives = input.checks.filter((c) => c.problem === 'drive_back_empty');
+	const rest = input.checks.filter((c) => c.problem !== 'drive_back_empty');
+	const findings = [...(input.other ?? []), ...rest].map((c) => ({ kind: 'problem' in c ? (c as EquipmentCheck).problem : c.kind, laneIndex: c.laneIndex, message: c.message, severity: c.severity }));
+	const planter = condenseFindings(findings);
+	const drive = driveBackGroup(drives, input.passes, input.lanes);
+	const all = [...planter.filter((g) => g.severity === 'stop'), ...planter.filter((g) => g.severity !== 'stop'), ...(drive ? [drive] : []), ...fitGroups(input.fit, input.lanes)];
+	return all;
+}
+
+/** The sheet's lines per kind of problem: the builder's, or `checks` condensed when it gave none. */
+export function checkGroupsOf(sheet: { checks: readonly SheetCheck[]; checkGroups?: CondensedWarning[] }): CondensedWarning[] {
+	return sheet.checkGroups ?? condenseFindings(sheet.checks.map((c) => ({ kind: c.kind, laneIndex: c.laneIndex, message: c.message, severity: c.severity })));
+}
+
+/**
+ * What a pass does, without the lane numbers the pass list already shows:
+ * "Lanes 1–2: units 1–8 corn (hybrid A) on lane 1, units 9–16 soybean on lane 2" →
+ * "units 1–8 corn (hybrid A), units 9–16 soybean".
+ */
+export function passSetup(summary: string): string {
+	return summary.replace(/^Lanes? [\d,\s–-]+:\s*/, '').replace(/ on lane \d+/g, '');
+}
+
+/** The setup most passes share (when at least two do), written once above the pass list. */
+export function usualSetup(passes: readonly Pick<SheetPass, 'summary'>[]): string | null {
+	const counts = new Map<string, number>();
+	for (const p of passes) counts.set(passSetup(p.summary), (counts.get(passSetup(p.summary)) ?? 0) + 1);
+	let best: [string, number] | null = null;
+	for (const entry of counts) if (!best || entry[1] > best[1]) best = entry;
+	return best && best[1] >= 2 ? best[0] : null;
+}
+
+export interface LaneGroup {
+	/** 1-based lane numbers. */
+	laneNumbers: number[];
+	kind: SheetLane['kind'];
+	crop: string;
+	widthFt: number;
+	rows: number;
+	rowSpacingIn: number | null;
+	/** Acres of all the lanes together. */
+	acres: number;
+	variety: string | null;
+	populationPerAcre: number | null;
+	trialLabel: string | null;
+}
+
+/** Lanes set up alike (kind, crop, width, rows, variety, population, trial) in one row, in lane order. */
+export function laneGroups(lanes: readonly Omit<SheetLane, 'geometry'>[]): LaneGroup[] {
+	const groups = new Map<string, LaneGroup>();
+	for (const l of [...lanes].sort((a, b) => a.index - b.index)) {
+		const key = JSON.stringify([l.kind, l.crop, Math.round(l.widthFt * 100), l.rows, l.rowSpacingIn, l.variety, l.populationPerAcre, l.trialLabel]);
+		const g = groups.get(key);
+		if (g) {
+			g.laneNumbers.push(l.index + 1);
+			g.acres += l.acres;
+		} else {
+			groups.set(key, { laneNumbers: [l.index + 1], kind: l.kind, crop: l.crop, widthFt: l.widthFt, rows: l.rows, rowSpacingIn: l.rowSpacingIn, acres: l.acres, variety: l.variety, populationPerAcre: l.populationPerAcre, trialLabel: l.trialLabel });
+		}
+	}
+	return [...groups.values()];
+}
+
+/** "Lanes 1, 3, 5 … 63 (32)" for a group, "Lane 4" for one lane. */
+export function laneGroupLabel(g: Pick<LaneGroup, 'laneNumbers'>): string {
+	return g.laneNumbers.length === 1 ? `Lane ${g.laneNumbers[0]}` : `Lanes ${compactNumbers(g.laneNumbers)} (${g.laneNumbers.length})`;
+}
