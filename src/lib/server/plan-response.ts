@@ -27,7 +27,7 @@ const utf8 = new TextEncoder();
 export async function planStamp(access: FarmAccess, fieldId: string, season: number, variant?: string): Promise<PlanStamp | null> {
 	const q = seasonPlanQuery(access, fieldId, season, variant);
 	if (!q) return null;
-	const row = await q.first(
+	const row = await q.options({ name: variant ? 'plan_stamp_variant' : 'plan_stamp' }).first(
 		'p.id',
 		'p.version',
 		'p.adopted',

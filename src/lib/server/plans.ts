@@ -12,6 +12,8 @@ import { describeShift, shiftFeet } from '../plans/shift';
 import { rotationWarnings, type RotationWarning } from '../plans/rotation-flags';
 import type { Exclusion } from '../fields/shape';
 import { checkVarietyCrops } from './varieties';
+import { versionedMemo } from './versioned-memo';
+import type { Field } from './fields';
 
 export interface PlanLane extends Lane {
 	assignment: LaneAssignment | null;
@@ -130,6 +132,32 @@ async function readLanes(q: Db, planId: string): Promise<PlanLane[]> {
 	return (await q('plan_lanes').where({ plan_id: planId }).orderBy('lane_index').select(LANE_COLUMNS)).map(toLane);
 }
 
+// A saved version's lanes never change (every save writes a new version), so their rows are kept
+// per plan id and version (see versioned-memo.ts). Outlines are kept as text and parsed for each
+// reader, so no caller can change what the next one gets.
+const laneRowsOfVersion = versionedMemo<Row[]>(64);
+const VERSION_MOVED = new Error('the plan has a newer version');
+
+async function readVersionLanes(planId: string, version: number): Promise<PlanLane[]> {
+	let rows: Row[];
+	try {
+		rows = await laneRowsOfVersion.get(`${planId}:${version}`, async () => {
+			// Joined on the version, so the rows read are that version's, never a newer save's.
+			const found = await db()('plan_lanes as l')
+				.join('plans as p', 'p.id', 'l.plan_id')
+				.where({ 'p.id': planId, 'p.version': version })
+				.orderBy('l.lane_index')
+				.select([...LANE_COLUMNS.filter((c) => c !== 'geometry').map((c) => `l.${c}`), db().raw('l.geometry::text as geometry')]);
+			if (!found.length) throw VERSION_MOVED; // not kept: read again below
+			return found;
+		});
+	} catch (e) {
+		if (e !== VERSION_MOVED) throw e;
+		return readLanes(db(), planId);
+	}
+	return rows.map((r) => toLane({ ...r, geometry: JSON.parse(r.geometry) }));
+}
+
 function toPlan(row: Row, lanes: PlanLane[]): Plan {
 	return {
 		id: row.id,
@@ -159,8 +187,9 @@ function planRows(trx: Db, access: FarmAccess, fieldId: string) {
 	return trx('plans').where({ farm_id: access.farm.id, field_id: fieldId }).whereNull('deleted_at');
 }
 
-export async function listPlans(access: FarmAccess, fieldId: string): Promise<PlanSummary[]> {
-	await getField(access, fieldId);
+/** `field`: the field as this request already read it for this member, so it is not read twice. */
+export async function listPlans(access: FarmAccess, fieldId: string, field?: Promise<Field>): Promise<PlanSummary[]> {
+	await (field ?? getField(access, fieldId));
 	const rows = await planRows(db(), access, fieldId).orderBy([{ column: 'season', order: 'desc' }, { column: 'adopted', order: 'desc' }, { column: 'variant' }]);
 	return rows.map((r: Row) => ({ id: r.id, season: r.season, variant: r.variant, adopted: r.adopted, version: r.version, plantedAcres: r.planted_acres, updatedAt: r.updated_at }));
 }
@@ -182,17 +211,19 @@ export function seasonPlanQuery(access: FarmAccess, fieldId: string, season: num
 
 /**
  * The season's adopted plan, or the named variant, read as it was saved: the plan row and its
- * stored lanes (two queries, whatever the lane count), never laid out again.
+ * stored lanes (two queries at most, whatever the lane count; lanes are kept per version), never
+ * laid out again.
  */
 export async function getPlan(access: FarmAccess, fieldId: string, season: number, variant?: string): Promise<Plan> {
 	const q = seasonPlanQuery(access, fieldId, season, variant);
 	if (!q) throw notFound('field');
-	const row = await q.first('p.*');
+	// Prepared once per connection (one name per shape of the statement): every plan read runs it.
+	const row = await q.options({ name: variant ? 'season_plan_variant' : 'season_plan' }).first('p.*');
 	if (!row) {
 		await getField(access, fieldId); // a missing field says so, not "no plan"
 		throw notFound(variant ? `plan variant "${variant}" for ${season}` : `adopted plan for ${season}`);
 	}
-	return toPlan(row, await readLanes(db(), row.id));
+	return toPlan(row, await readVersionLanes(row.id, row.version));
 }
 
 async function writeLanes(trx: Knex.Transaction, access: FarmAccess, planId: string, lanes: PlanLane[]) {

@@ -28,13 +28,14 @@ export const load: PageServerLoad = async (event) => {
 	try {
 		const season = parseSeason(event.params.season);
 		const variant = event.url.searchParams.get('variant') ?? undefined;
+		const fieldRead = getField(access, event.params.fieldId);
 		const [field, plan, plans, equipment, catalogue] = await Promise.all([
-			getField(access, event.params.fieldId),
+			fieldRead,
 			getPlan(access, event.params.fieldId, season, variant).catch((e) => {
 				if (e instanceof AppError && e.status === 404 && !variant) return null;
 				throw e;
 			}),
-			listPlans(access, event.params.fieldId),
+			listPlans(access, event.params.fieldId, fieldRead),
 			listEquipment(access),
 			catalogueForPlans(access)
 		]);
