@@ -71,3 +71,21 @@ test('an unknown zone posted without the list is answered beside the select, and
 	await page.reload();
 	await expect(page.getByText('Saved: America/Chicago', { exact: false })).toBeVisible();
 });
+
+test('without JavaScript both forms save and answer on the page', async ({ page, browser }) => {
+	const farm = await ownFarm(page, 'settings-nojs');
+	const settings = new URL(`/farms/${farm.farmId}/settings`, page.url()).href;
+	const context = await browser.newContext({ javaScriptEnabled: false, storageState: await page.context().storageState() });
+	const plain = await context.newPage();
+	await plain.goto(settings);
+	await plain.getByLabel('Metric (hectares, metres)').check();
+	await plain.getByRole('button', { name: 'Save units' }).click();
+	await expect(plain.getByText('Areas now show in hectares and lengths in metres.', { exact: true })).toBeVisible();
+	await plain.getByLabel('Farm time zone').selectOption('Asia/Tokyo');
+	await plain.getByRole('button', { name: 'Save time zone' }).click();
+	await expect(plain.getByText('Days and times now read in Asia/Tokyo.', { exact: true })).toBeVisible();
+	await plain.goto(settings);
+	await expect(plain.getByLabel('Metric (hectares, metres)')).toBeChecked();
+	await expect(plain.getByLabel('Farm time zone')).toHaveValue('Asia/Tokyo');
+	await context.close();
+});
