@@ -190,7 +190,10 @@ function planRows(trx: Db, access: FarmAccess, fieldId: string) {
 /** `field`: the field as this request already read it for this member, so it is not read twice. */
 export async function listPlans(access: FarmAccess, fieldId: string, field?: Promise<Field>): Promise<PlanSummary[]> {
 	await (field ?? getField(access, fieldId));
-	const rows = await planRows(db(), access, fieldId).orderBy([{ column: 'season', order: 'desc' }, { column: 'adopted', order: 'desc' }, { column: 'variant' }]);
+	// Only the summary columns: a plan row also holds every lane assignment and the settings.
+	const rows = await planRows(db(), access, fieldId)
+		.orderBy([{ column: 'season', order: 'desc' }, { column: 'adopted', order: 'desc' }, { column: 'variant' }])
+		.select('id', 'season', 'variant', 'adopted', 'version', 'planted_acres', 'updated_at');
 	return rows.map((r: Row) => ({ id: r.id, season: r.season, variant: r.variant, adopted: r.adopted, version: r.version, plantedAcres: r.planted_acres, updatedAt: r.updated_at }));
 }
 
