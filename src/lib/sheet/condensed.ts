@@ -176,3 +176,8 @@ export function laneGroups(lanes: readonly Omit<SheetLane, 'geometry'>[]): LaneG
 export function laneGroupLabel(g: Pick<LaneGroup, 'laneNumbers'>): string {
 	return g.laneNumbers.length === 1 ? `Lane ${g.laneNumbers[0]}` : `Lanes ${compactNumbers(g.laneNumbers)} (${g.laneNumbers.length})`;
 }
+
+/** `?appendix=1` (or true, yes, on) on the sheet page and sheet.pdf asks for the full lists. */
+export function wantsAppendix(url: URL): boolean {
+	return ['1', 'true', 'yes', 'on'].includes((url.searchParams.get('appendix') ?? '').toLowerCase());
+}

@@ -10,6 +10,8 @@ import { zodFields } from '$lib/server/api';
 import { listEquipment } from '$lib/server/equipment';
 import { catalogueForPlans } from '$lib/server/varieties';
 import { loadSheet } from '$lib/server/sheet';
+import { checkGroupsOf } from '$lib/sheet/condensed';
+import type { CondensedWarning } from '$lib/farm/condense';
 import { versionedMemo } from '$lib/server/versioned-memo';
 import { lanesForTransport } from '$lib/plans/coordinates';
 import { createHash } from 'node:crypto';
@@ -18,8 +20,8 @@ import { createHash } from 'node:crypto';
 // remembered under the versions it was computed from (see versioned-memo.ts).
 const rotations = versionedMemo<Awaited<ReturnType<typeof rotationFromPrevious>>>();
 const planterChecks = versionedMemo<PlanterChecks | null>();
-// The page shows the first stops and counts the rest; the sheet lists them all.
-type PlanterChecks = { planter: string | null; stopCount: number; firstStops: string[]; warningCount: number };
+// The page shows the first stops and one line per other kind of check; the sheet lists them all.
+type PlanterChecks = { planter: string | null; stopCount: number; firstStops: string[]; warningCount: number; warnings: CondensedWarning[] };
 
 const fingerprint = (value: unknown) => createHash('sha1').update(JSON.stringify(value)).digest('base64url');
 
@@ -72,13 +74,11 @@ export const load: PageServerLoad = async (event) => {
 async function checksFromSheet(access: FarmAccess, fieldId: string, season: number, variant: string | undefined): Promise<PlanterChecks | null> {
 	try {
 		const sheet = await loadSheet(access, fieldId, season, { variant });
-		const stops = sheet.checks.filter((c) => c.severity === 'stop').map((c) => c.message);
-		return {
-			planter: sheet.equipment?.name ?? null,
-			stopCount: stops.length,
-			firstStops: stops.slice(0, 5),
-			warningCount: sheet.checks.filter((c) => c.severity === 'warn').length
-		};
+		// Said once per kind, as the sheet prints them: "31 passes (1, 2, 3 … 31): Nitrogen is on …".
+		const groups = checkGroupsOf(sheet);
+		const stops = groups.filter((c) => c.severity === 'stop').map((c) => c.summary);
+		const warnings = groups.filter((c) => c.severity === 'warn');
+		return { planter: sheet.equipment?.name ?? null, stopCount: stops.length, firstStops: stops.slice(0, 5), warningCount: warnings.length, warnings };
 	} catch (e) {
 		if (!(e instanceof AppError)) throw e;
 		return null;
