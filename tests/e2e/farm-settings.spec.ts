@@ -1,11 +1,13 @@
 // The owner switches the farm to metric and to another time zone on the settings page; the fields
 // page then shows hectares, and the farm menu reaches products, the seed catalogue and rainfall.
 import { expect, test } from '@playwright/test';
-import { eightyAcres, ownFarm, ownField } from './own-farm';
+import { CORN_8, SOYBEAN_8, eightyAcres, ownFarm, ownField, ownPlan } from './own-farm';
 
 test('switching to metric shows the fields page in hectares; the time zone is saved from its list', async ({ page }) => {
 	const farm = await ownFarm(page, 'settings');
-	await ownField(page.request, farm.farmId, 'Settings north', eightyAcres().boundary);
+	const { boundary, guidance } = eightyAcres();
+	const fieldId = await ownField(page.request, farm.farmId, 'Settings north', boundary);
+	const plan = await ownPlan(page.request, farm.farmId, fieldId, 2026, { guidance, pattern: [CORN_8, SOYBEAN_8], offsetFt: 0, headlandFt: 0 });
 
 	await page.goto(`/farms/${farm.farmId}/fields`);
 	const total = page.getByTestId('total-acres');
@@ -38,6 +40,13 @@ test('switching to metric shows the fields page in hectares; the time zone is sa
 	// 1 ac = 0.4046856 ha (NIST Handbook 44, 2023, Appendix C); both figures are rounded to 0.01.
 	expect(Math.abs(hectares - acres * 0.4046856)).toBeLessThan(0.011);
 	await expect(table.getByRole('row', { name: /Settings north/ }).getByRole('cell').nth(1)).toHaveText(`${hectares.toFixed(2)} ha`);
+
+	// The season map's totals, legend and field labels read in hectares too.
+	await page.goto(`/farms/${farm.farmId}?season=2026`);
+	const planted = Number(plan.plantedAcres);
+	await expect(page.getByTestId('total-planted')).toHaveText(`${(planted * 0.4046856).toFixed(1)} ha`);
+	await expect(page.getByRole('table', { name: 'Hectares by crop in 2026' })).toBeVisible();
+	await expect(page.getByRole('list', { name: 'Crop colours' }).getByRole('listitem').first()).toHaveText(/^corn\s·\s\d+\.\d ha$/);
 
 	await page.goto(`/farms/${farm.farmId}/settings`);
 	await expect(page.getByLabel('Metric (hectares, metres)')).toBeChecked();
