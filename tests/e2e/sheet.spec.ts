@@ -18,13 +18,17 @@ test('the plan shows the planter checks; the sheet lists passes, stops on the mi
 	await expect(page.getByRole('heading', { level: 1 })).toHaveText('Seeding sheet — Shelter Lanes 2026');
 	await expect(page.getByTestId('sheet-stops')).toContainText(/STOP: \d+ problems? to fix before planting/);
 	await expect(page.getByTestId('sheet-stops')).toContainText(/Nitrogen \(UAN 32 %\) is on at row unit 9\b/);
+	// Row units set up alike share a row; unit 9 (soybean, nitrogen open) stands alone.
 	const units = page.getByTestId('row-unit-table').locator('tbody tr');
-	await expect(units).toHaveCount(16);
-	await expect(units.nth(8)).toContainText('soybean');
+	await expect(units.first()).toContainText('Units 1–8');
+	await expect(units.filter({ has: page.getByRole('cell', { name: 'Unit 9', exact: true }) })).toContainText('soybean');
 	await expect(page.getByTestId('sheet-passes').locator('li').first()).toContainText(/\bPass 1\b/);
 	const plan = await (await page.request.get(`/api/farms/${DEMO_FARM_ID}/fields/5a1e0000-0000-4000-8000-0000000001f3/plans/2026`)).json();
 	expect(plan.lanes.length).toBeGreaterThan(80);
-	await expect(page.getByTestId('sheet-lanes').locator('tbody tr')).toHaveCount(plan.lanes.length);
+	// A field of more than 24 lanes: lanes set up alike share a row; every lane is in the appendix.
+	const laneRows = page.getByTestId('sheet-lanes').locator('tbody tr');
+	await expect(laneRows.filter({ hasText: /^Lanes \d+, \d+, \d+ … \d+ \(\d+\)/ }).first()).toBeVisible();
+	expect(await laneRows.count()).toBeLessThan(plan.lanes.length / 4);
 	// The drill that is too wide for the pasture lanes (15 ft in 10 ft: 30 in each side).
 	await expect(page.getByTestId('sheet-checks')).toContainText('15-ft drill');
 	await expect(page.getByTestId('sheet-cautions')).toContainText('The label is the law');
@@ -34,6 +38,8 @@ test('the plan shows the planter checks; the sheet lists passes, stops on the mi
 	await expect(page.getByRole('navigation', { name: 'Main' }).first()).toBeHidden();
 	await page.screenshot({ path: test.info().outputPath('sheet-print.png'), fullPage: true });
 	await page.emulateMedia({ media: 'screen' });
+	await page.goto(`${SHELTER}/plans/2026/sheet?appendix=1`);
+	await expect(page.getByTestId('sheet-lanes-all').locator('tbody tr')).toHaveCount(plan.lanes.length);
 
 	// PDF of the same sheet.
 	const pdf = await page.request.get(`/api/farms/${DEMO_FARM_ID}/fields/5a1e0000-0000-4000-8000-0000000001f3/plans/2026/sheet.pdf`);

@@ -8,6 +8,7 @@ import { listEquipment } from '$lib/server/equipment';
 import { listMembers } from '$lib/server/team';
 import { parseSeason } from '$lib/server/season';
 import { emailSheet } from '$lib/server/sheet-mail';
+import { wantsAppendix } from '$lib/sheet/condensed';
 
 export const load: PageServerLoad = async (event) => {
 	const access = await requireMember(event, event.params.farmId, 'read');
@@ -18,7 +19,7 @@ export const load: PageServerLoad = async (event) => {
 		const sheet = await loadSheet(access, event.params.fieldId, season, { planterId, variant });
 		const planters = (await listEquipment(access)).filter((e) => e.kind === 'planter').map((e) => ({ id: e.id, name: e.name, isDefault: e.isDefaultPlanter }));
 		const crew = access.can('editPlans') ? (await listMembers(access.farm.id)).filter((m) => m.role !== 'viewer').map((m) => ({ userId: m.userId, name: m.name, email: m.email, role: m.role })) : [];
-		return { sheet, planters, planterId, crew };
+		return { sheet, planters, planterId, crew, appendix: wantsAppendix(event.url) };
 	} catch (e) {
 		if (e instanceof AppError) error(e.status, { message: e.message, code: e.code });
 		throw e;

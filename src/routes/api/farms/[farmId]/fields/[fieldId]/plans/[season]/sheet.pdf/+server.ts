@@ -6,6 +6,7 @@ import { renderSheetPdf } from '$lib/server/sheet-pdf';
 import { parseSeason } from '$lib/server/season';
 import { recordAudit } from '$lib/server/audit';
 import { db } from '$lib/server/db';
+import { wantsAppendix } from '$lib/sheet/condensed';
 
 export const GET: RequestHandler = api(async (event) => {
 	const access = await requireMember(event, event.params.farmId, 'read');
@@ -13,7 +14,8 @@ export const GET: RequestHandler = api(async (event) => {
 		planterId: event.url.searchParams.get('planter'),
 		variant: event.url.searchParams.get('variant') ?? undefined
 	});
-	const pdf = await renderSheetPdf(sheet, { timeZone: access.farm.timeZone });
+	// ?appendix=1 adds the full lists (every finding, lane and pass) after the two-sided sheet.
+	const pdf = await renderSheetPdf(sheet, { timeZone: access.farm.timeZone, appendix: wantsAppendix(event.url) });
 	// The planning board shows a sheet as printed once someone who works the field has taken its PDF.
 	if (access.can('logRecords')) {
 		await recordAudit(db(), { farmId: access.farm.id, userId: access.user.id, entity: 'sheet', entityId: event.params.fieldId, action: 'print', after: { season: sheet.season } });
