@@ -1,5 +1,5 @@
 // Answers for reads of a saved plan. One light query reads the plan's stamp (id, version, last
-// change, adopted); the ETag comes from it, so a client holding this version gets 304 and a body
+// change, adopted; kept a few seconds, until the next write); the ETag comes from it, so a client holding this version gets 304 and a body
 // already serialized for it is sent again without reading the lanes. Every save makes a new version
 // and adopting touches updated_at, so a stamp never names two different bodies. Access is checked
 // before any of this runs, on every request, and the stamp is read through getPlan's own query, so it
@@ -8,6 +8,8 @@ import { createHash } from 'node:crypto';
 import type { FarmAccess } from './access';
 import { seasonPlanQuery } from './plans';
 import { versionedMemo } from './versioned-memo';
+import { WatchedCache } from './watched-cache';
+import { db } from './db';
 
 export interface PlanStamp {
 	id: string;
@@ -23,18 +25,26 @@ const FORMAT = 1;
 const bodies = versionedMemo<Uint8Array<ArrayBuffer>>(64);
 const utf8 = new TextEncoder();
 
+// Stamps of the last few seconds, per farm, field, season and variant. Any write to plans, fields or
+// farms from this process empties them (see watched-cache.ts); they are looked up only after the
+// access check and seasonPlanQuery's field-scope rule have passed for this member.
+const stamps = new WatchedCache<PlanStamp>({ tables: ['plans', 'plan_lanes', 'fields', 'farms'], ttlMs: 5_000, limit: 5_000 });
+
 /** The stamp of the season's adopted plan (or the named variant); null when there is none to show. */
 export async function planStamp(access: FarmAccess, fieldId: string, season: number, variant?: string): Promise<PlanStamp | null> {
 	const q = seasonPlanQuery(access, fieldId, season, variant);
 	if (!q) return null;
-	const row = await q.options({ name: variant ? 'plan_stamp_variant' : 'plan_stamp' }).first(
-		'p.id',
-		'p.version',
-		'p.adopted',
-		'p.updated_at',
-		'f.name as field_name'
-	);
-	return row ? { id: row.id, version: row.version, adopted: row.adopted, updatedAt: row.updated_at, fieldName: row.field_name } : null;
+	stamps.watch(db());
+	return stamps.get(`${access.farm.id}:${fieldId}:${season}:${variant?.toLowerCase() ?? ''}`, async () => {
+		const row = await q.options({ name: variant ? 'plan_stamp_variant' : 'plan_stamp' }).first(
+			'p.id',
+			'p.version',
+			'p.adopted',
+			'p.updated_at',
+			'f.name as field_name'
+		);
+		return row ? { id: row.id, version: row.version, adopted: row.adopted, updatedAt: row.updated_at, fieldName: row.field_name } : null;
+	});
 }
 
 /** A weak validator for one plan answer; `extra` names anything else the body shows (e.g. the field's name). */
