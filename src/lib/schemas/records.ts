@@ -18,6 +18,8 @@ export const RECORD_TYPE_LABELS: Record<RecordType, string> = {
 
 const text = (max: number) => z.string().trim().max(max, `Use at most ${max} characters.`).nullish().transform((v) => v || null);
 const patchText = (max: number) => z.string().trim().max(max, `Use at most ${max} characters.`).nullable().optional();
+/** A number field whose type error says which field, in words (NaN arrives for "hot" typed in a number box). */
+const number = (what: string) => z.number({ message: `${what} must be a number.` }).finite(`${what} must be a number.`);
 const when = (what: string) => z.iso.datetime({ offset: true, message: `${what} must be a date and time in ISO 8601 with an offset, e.g. 2026-06-02T14:30:00-05:00.` });
 
 export const productLineSchema = z.object({
@@ -36,14 +38,14 @@ export const productLineSchema = z.object({
 export const lanePartSchema = z
 	.object({
 		laneIndex: z.number().int().min(0),
-		fromFt: z.number().finite().min(0, '"From" cannot be negative.'),
-		toFt: z.number().finite()
+		fromFt: number('"From" (ft)').min(0, '"From" cannot be negative.'),
+		toFt: number('"To" (ft)')
 	})
 	.refine((p) => p.toFt > p.fromFt, { message: '"To" must be greater than "from".', path: ['toFt'] });
 
 const coverSpecies = z.object({
 	species: z.string().trim().min(1, 'Name the species.').max(60),
-	rateLbPerAcre: z.number().finite().gt(0, 'A seeding rate must be more than 0 lb/ac.').max(500, 'Over 500 lb/ac of one species cannot be real.')
+	rateLbPerAcre: number('The seeding rate (lb/ac)').gt(0, 'A seeding rate must be more than 0 lb/ac.').max(500, 'Over 500 lb/ac of one species cannot be real.')
 });
 
 /** Type-specific facts; each is optional, and kept as sent in the record's details. */
@@ -51,14 +53,14 @@ export const detailsSchema = z
 	.object({
 		variety: text(80),
 		varietyId: z.uuid().nullish(),
-		populationPerAcre: z.number().int('Population is whole seeds per acre.').min(1000, 'Population under 1,000 seeds/ac looks like a typo.').max(2_000_000).nullish(),
-		depthIn: z.number().finite().gt(0, 'Depth must be more than 0 in.').max(24, 'Over 24 in is not a planting or tillage depth.').nullish(),
+		populationPerAcre: z.number({ message: 'Population (seeds/ac) must be a number.' }).int('Population is whole seeds per acre.').min(1000, 'Population under 1,000 seeds/ac looks like a typo.').max(2_000_000).nullish(),
+		depthIn: number('Depth (in)').gt(0, 'Depth must be more than 0 in.').max(24, 'Over 24 in is not a planting or tillage depth.').nullish(),
 		seedLot: text(60),
 		analysis: text(40),
 		placement: z.enum(['broadcast', 'banded', 'in-furrow', '2x2', 'side-dress', 'injected', 'foliar', 'other']).nullish(),
 		method: z.enum(['drilled', 'broadcast', 'interseeded', 'aerial']).nullish(),
 		species: z.array(coverSpecies).max(12).nullish(),
-		heightIn: z.number().finite().gt(0).max(48).nullish(),
+		heightIn: number('Cutting height (in)').gt(0, 'Cutting height must be more than 0 in.').max(48, 'Over 48 in is not a cutting height.').nullish(),
 		reason: text(200)
 	})
 	.strict();
@@ -75,8 +77,8 @@ const recordFields = {
 	equipment: text(120),
 	weather: z
 		.object({
-			tempF: z.number().finite().min(-60, 'Below −60 °F is not field weather.').max(140, 'Above 140 °F is not field weather.').nullish(),
-			windMph: z.number().finite().min(0, 'Wind speed cannot be negative.').max(150, 'Over 150 mph is not field weather.').nullish(),
+			tempF: number('Temperature (°F)').min(-60, 'Below −60 °F is not field weather.').max(140, 'Above 140 °F is not field weather.').nullish(),
+			windMph: number('Wind speed (mph)').min(0, 'Wind speed cannot be negative.').max(150, 'Over 150 mph is not field weather.').nullish(),
 			windFrom: text(20)
 		})
 		.nullish(),
