@@ -3,6 +3,7 @@ import { error, redirect, type RequestEvent } from '@sveltejs/kit';
 import { db } from './db';
 import { can, CAPABILITY_LABELS, ROLE_LABELS, type Capability, type Role } from '../permissions';
 import type { SessionUser } from './auth';
+import { notFound } from './errors';
 
 export interface FarmAccess {
 	user: SessionUser;
@@ -97,4 +98,15 @@ export async function requireMember(event: Event, farmId: string | undefined, ca
 /** Whether this member may see the field (viewers: only the fields granted to them). */
 export function canSeeField(access: FarmAccess, fieldId: string): boolean {
 	return access.fieldScope === null || access.fieldScope.includes(fieldId);
+}
+
+/**
+ * A field named by the caller (in a path or a query): it must be this farm's, not deleted, and
+ * visible to this member; anything else answers 404 exactly like a missing field.
+ */
+export async function requireField(access: FarmAccess, fieldId: string | undefined | null): Promise<{ id: string; name: string }> {
+	if (!isUuid(fieldId) || !canSeeField(access, fieldId)) throw notFound('field');
+	const row = await db()('fields').where({ id: fieldId, farm_id: access.farm.id }).whereNull('deleted_at').first('id', 'name');
+	if (!row) throw notFound('field');
+	return row;
 }

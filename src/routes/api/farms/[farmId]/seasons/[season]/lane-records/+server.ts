@@ -1,8 +1,8 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
 import { api } from '$lib/server/api';
-import { isUuid, requireMember, canSeeField } from '$lib/server/access';
-import { invalid, notFound } from '$lib/server/errors';
+import { isUuid, requireField, requireMember } from '$lib/server/access';
+import { invalid } from '$lib/server/errors';
 import { parseSeason } from '$lib/server/season';
 import { laneRecords } from '$lib/server/farm-season';
 
@@ -16,7 +16,7 @@ export const GET: RequestHandler = api(async (event) => {
 	if (!isUuid(fieldId)) fields.fieldId = ['Give the field id (a UUID).'];
 	if (!/^\d{1,5}$/.test(laneText)) fields.laneIndex = ['Give the lane index, a whole number from 0.'];
 	if (Object.keys(fields).length) throw invalid('Say which lane: ?fieldId=…&laneIndex=…', fields);
-	if (!canSeeField(access, fieldId)) throw notFound('field');
+	await requireField(access, fieldId);
 	const records = await laneRecords(access, fieldId, season, Number(laneText));
 	return json({ records }, { headers: { 'cache-control': 'private, no-store' } });
 });
