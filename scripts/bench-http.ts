@@ -296,10 +296,18 @@ async function main() {
 	const barePort = await startBare(captured);
 	const headers = { cookie: client.cookie, accept: 'application/json, text/html' };
 
+	// Every target is warmed before any is measured: the first one measured would otherwise pay for
+	// the app's start-up (compiling the shared request path, filling the pool, the database settling
+	// after the seed), which says nothing about that target.
+	step('warming every target for 1 s (not counted)');
+	for (const c of captured) await measure(origin + c.path, headers, 1);
+
+	const loadBefore = os.loadavg()[0];
 	const rows = [['target', 'bytes', 'app req/s', 'app p95 ms', 'bare req/s', 'bare p95 ms', 'req/s ÷ bare', 'p95 ÷ bare']];
 	for (const c of captured) {
 		step(`measuring ${c.name} (${SECONDS} s each, ${CONNECTIONS} connections)`);
 		await measure(origin + c.path, headers, 1); // warm-up, not counted
+		await measure(`http://${HOST}:${barePort}${c.path}`, {}, 1);
 		const ours = await measure(origin + c.path, headers);
 		const bare = await measure(`http://${HOST}:${barePort}${c.path}`, {});
 		if (ours.errors || bare.errors) console.warn(`  ! ${ours.errors} app and ${bare.errors} bare requests did not answer 200`);
@@ -314,7 +322,9 @@ async function main() {
 			`${(ours.p95Ms / bare.p95Ms).toFixed(1)}×`
 		]);
 	}
-	console.log(`\n${os.cpus().length} cores, Node ${process.version}, ${CONNECTIONS} connections, ${SECONDS} s per target\n`);
+	// Other programs on the machine take turns with both servers: the 1-minute load says how busy it was.
+	const load = `load average ${loadBefore.toFixed(1)} → ${os.loadavg()[0].toFixed(1)}`;
+	console.log(`\n${os.cpus().length} cores, ${load}, Node ${process.version}, ${CONNECTIONS} connections, ${SECONDS} s per target\n`);
 	console.log(table(rows));
 
 	if (process.env.BENCH_FARM_MAP !== '0') {
