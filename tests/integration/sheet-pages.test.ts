@@ -82,7 +82,7 @@ describe('the cab sheet on one sheet of paper', () => {
 		expect(pages[0]).toContain('STOP: 1 problem to fix before planting');
 		expect(flat).toMatch(/Nitrogen \(UAN 32 %\) is on at row unit 9 over 31 soybean lanes \(2, 4, 6 … 62\)/);
 		expect(flat).toMatch(/30 passes \(2, 3, 4 … 31\) start from the same end as the pass before: 30 empty returns, about \d+ miles driven with the planter raised/);
-		expect(flat).toMatch(/15-ft drill: 63 lanes \(1, 2, 3 … 63\), 20 ft each: 2 passes of the 15-ft drill or seeder; the last covers 33 % of its width, so it overlaps the pass before it; about \d+ ac covered twice/);
+		expect(flat).toMatch(/15-ft drill: 63 lanes \(1, 2, 3 … 63\), 20 ft each: 2 passes a lane, the last overlapping the one before \(it covers 33 % of its width\); about \d+ ac covered twice/);
 		expect(text).not.toMatch(/Pass \d+ starts from A again/);
 		// Every pass keeps its tick box, four to a row; lanes set up alike share a row.
 		expect(text).toMatch(/^1 A 1–2 16 2 A 3–4 16 3 A 5–6 16 4 A 7–8 16$/m);

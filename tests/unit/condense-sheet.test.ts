@@ -73,10 +73,10 @@ describe('what a sheet problem costs', () => {
 		const out = fitGroups(reports, lanes);
 		expect(out).toHaveLength(2);
 		// Each 20-ft lane (1.21 ac) takes two 15-ft passes: 10 ft of its 20 seeded twice, 0.61 ac a lane.
-		expect(out[0].summary).toBe('15-ft drill: 6 lanes (1, 2, 3, 4, 5, 6), 20 ft each: 2 passes of the 15-ft drill or seeder; the last covers 33 % of its width, so it overlaps the pass before it; about 3.6 ac covered twice.');
+		expect(out[0].summary).toBe('15-ft drill: 6 lanes (1, 2, 3, 4, 5, 6), 20 ft each: 2 passes a lane, the last overlapping the one before (it covers 33 % of its width); about 3.6 ac covered twice.');
 		expect(out[0].details).toHaveLength(6);
 		// Centred on a 20-ft lane, 20 ft on each side: twice the lane's 1.21 ac, six times over.
-		expect(out[1].summary).toBe('60-ft sprayer: 6 lanes (1, 2, 3, 4, 5, 6), 20 ft each: the 60-ft sprayer is wider than the lane; centred, it reaches 240 in onto each neighbouring lane; about 15 ac of neighbouring lanes under it in all.');
+		expect(out[1].summary).toBe('60-ft sprayer: 6 lanes (1, 2, 3, 4, 5, 6), 20 ft each: wider than the lane, it reaches 240 in onto each neighbour; about 15 ac of neighbouring lanes under it in all.');
 	});
 });
 

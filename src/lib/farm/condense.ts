@@ -90,9 +90,12 @@ const LANE_WORD = /\b[Ll]ane (\d+)( \(([^)]*)\))?/g;
  * Findings whose messages differ only in the pass and lane they name, said once: "31 passes
  * (1, 2, 3 … 31): Nitrogen is on at row unit 9 over 31 soybean lanes (2, 4, 6 … 62) …". A
  * message naming no pass and no lane, or one of a kind, stays word for word. STOP items first.
- * @example condenseFindings(sheet.checks.map((c) => ({ ...c, kind: c.kind })))
+ * A kind with `words` that still takes more than `maxLines` lines (messages that differ in more
+ * than a pass and a lane) becomes one line: "14 lanes (3, 9, 15 … 85): lane not a whole number of
+ * planter widths", every message kept in the details.
+ * @example condenseFindings(checks, { words: { partial_pass: 'lane not a whole number of planter widths' } })
  */
-export function condenseFindings(findings: readonly LaneWarning[]): CondensedWarning[] {
+export function condenseFindings(findings: readonly LaneWarning[], options: { words?: Record<string, string>; maxLines?: number } = {}): CondensedWarning[] {
 	interface Group { first: LaneWarning; template: string; crop: string | null; passes: number[]; lanes: number[]; details: string[] }
 	const groups = new Map<string, Group>();
 	findings.forEach((f, i) => {
@@ -122,10 +125,37 @@ export function condenseFindings(findings: readonly LaneWarning[]): CondensedWar
 		const passes = [...new Set(g.passes)].sort((a, b) => a - b);
 		const lead = passes.length > 1 ? `${passesWord(passes.length)} (${compactNumbers(passes)}): ` : passes.length === 1 ? `Pass ${passes[0]}: ` : '';
 		const laneText = lanes.length ? laneListWords(lanes, g.crop ?? '') : '';
-		const body = g.template.replace('\u0000', laneText);
+		// "8 lanes (2, 6, 10 … 30) is laid out" → "are laid out".
+		const body = g.template.replace(/\u0000( is | has )?/, (_m, verb?: string) => `${laneText}${verb ? (lanes.length > 1 ? (verb === ' is ' ? ' are ' : ' have ') : verb) : ''}`);
 		return { ...base, summary: lead ? `${lead}${body}` : body.charAt(0).toUpperCase() + body.slice(1) };
 	});
-	return sortStopsFirst(out);
+	return sortStopsFirst(mergeKinds(out, findings, options.words ?? {}, options.maxLines ?? 2));
+}
+
+/** Warn-level kinds still said in more than `maxLines` lines become one line each (STOP lines stay). */
+function mergeKinds(lines: CondensedWarning[], findings: readonly LaneWarning[], words: Record<string, string>, maxLines: number): CondensedWarning[] {
+	const byKind = new Map<string, CondensedWarning[]>();
+	for (const l of lines) if (l.severity === 'warn' && words[l.kind]) byKind.set(l.kind, [...(byKind.get(l.kind) ?? []), l]);
+	const merged = new Set<string>([...byKind].filter(([, list]) => list.length > maxLines).map(([kind]) => kind));
+	if (merged.size === 0) return lines;
+	const out: CondensedWarning[] = [];
+	const done = new Set<string>();
+	for (const l of lines) {
+		if (l.severity !== 'warn' || !merged.has(l.kind)) {
+			out.push(l);
+			continue;
+		}
+		if (done.has(l.kind)) continue;
+		done.add(l.kind);
+		const list = byKind.get(l.kind) ?? [];
+		const lanes = [...new Set(list.flatMap((x) => x.laneNumbers))].sort((a, b) => a - b);
+		const passes = [...new Set(findings.filter((f) => f.kind === l.kind && (f.severity ?? 'warn') === 'warn').map((f) => PASS_PREFIX.exec(f.message)?.[1]).filter((n): n is string => !!n).map(Number))].sort((a, b) => a - b);
+		const where = passes.length ? `${passesWord(passes.length)} (${compactNumbers(passes)})${lanes.length ? `, ${laneListWords(lanes)}` : ''}` : lanes.length ? laneListWords(lanes) : '';
+		const what = words[l.kind];
+		const summary = where ? `${where.charAt(0).toUpperCase()}${where.slice(1)}: ${what}.` : `${what.charAt(0).toUpperCase()}${what.slice(1)}.`;
+		out.push({ kind: l.kind, severity: 'warn', summary, details: list.flatMap((x) => x.details), laneNumbers: lanes });
+	}
+	return out;
 }
 
 function sortStopsFirst(list: CondensedWarning[]): CondensedWarning[] {

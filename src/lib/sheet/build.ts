@@ -17,7 +17,7 @@ import {
 } from '../equipment/index';
 import { toSheetChecks, toSheetPasses, toSheetQuantities, toSheetSeedQuantities, type SheetVariety } from './passes';
 import { fitGroups, sheetCheckGroups } from './condensed';
-import { condenseFindings } from '../farm/condense';
+import { compactNumbers, condenseFindings } from '../farm/condense';
 import { withCatalogueUnits, type CatalogueVariety } from '../catalog/variety-check';
 import type { VarietyQuantity } from '../equipment/index';
 
@@ -57,7 +57,7 @@ function hazards(src: SheetSource): string[] {
 	const out = src.outline.exclusions.map((x, i) => `No-plant area: ${x.name || `exclusion ${i + 1}`} (${x.kind}). Lift the planter across it.`);
 	const pasture = src.plan.lanes.filter((l) => l.kind === 'pasture').map((l) => l.index + 1);
 	if (pasture.length) {
-		const list = pasture.length > 12 ? `${pasture.slice(0, 12).join(', ')} and ${pasture.length - 12} more` : pasture.join(', ');
+		const list = `${compactNumbers(pasture)}${pasture.length > 6 ? ` (${pasture.length} lanes)` : ''}`;
 		out.push(`Animals and mobile shelters may be on pasture lanes ${list}: look before each pass and keep to the crop lanes.`);
 	}
 	if (src.plan.headlandFt > 0) out.push(`Headland: ${src.plan.headlandFt} ft inside the boundary is left for turning.`);

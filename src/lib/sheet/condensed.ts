@@ -88,15 +88,25 @@ export function fitGroups(reports: readonly ImplementFitReport[], lanes: readonl
 				const extraFt = overhang ? (2 * x.overhangEachSideIn) / 12 : x.passes * r.implement.workingWidthFt - x.laneWidthFt;
 				return sum + (lane.acres * extraFt) / x.laneWidthFt;
 			}, 0);
-			const rest = f.message.slice(f.message.indexOf(': ') + 2);
-			const cost = overhang ? `about ${acresText(acres)} of neighbouring lanes under it in all` : `about ${acresText(acres)} covered twice`;
+			const where = `${r.implement.name}: ${laneListWords(list.map((x) => x.laneIndex + 1))}, ${feetText(f.laneWidthFt)}${list.length > 1 ? ' each' : ''}`;
+			const summary = overhang
+				? `${where}: wider than the lane, it reaches ${Math.round(f.overhangEachSideIn)} in onto each neighbour; about ${acresText(acres)} of neighbouring lanes under it in all.`
+				: `${where}: ${f.passes} passes a lane, the last overlapping the one before (it covers ${Math.round(f.lastPassCoverage * 100)} % of its width); about ${acresText(acres)} covered twice.`;
 			const details = list.map((x) => `${r.implement.name}: ${x.message}`);
-			const summary = list.length === 1 ? `${details[0]} (${cost}.)` : `${r.implement.name}: ${laneListWords(list.map((x) => x.laneIndex + 1))}, ${feetText(f.laneWidthFt)} each: ${rest.replace(/\.$/, '')}; ${cost}.`;
 			out.push({ kind: overhang ? 'overhang' : 'partial_pass', severity: 'warn', summary, details, laneNumbers: list.map((x) => x.laneIndex + 1) });
 		}
 	}
 	return out;
 }
+
+/** A kind of planter finding in a few words, for the line that stands for many (condenseFindings). */
+export const SHEET_PROBLEM_WORDS: Record<string, string> = {
+	overhang: 'the planter reaches onto a lane it does not plant, with the row units over it shut off; see the appendix for how far on each pass',
+	partial_pass: 'a lane (or lanes planted together) is not a whole number of planter widths, so some passes run with row units shut off',
+	rows_not_planted: 'rows that no pass plants',
+	unit_on_outside_lanes: 'row units planting outside every lane; shut them off there',
+	spacing_mismatch: 'the planter row spacing differs from the lane\'s; shut off the units that miss a row'
+};
 
 /**
  * The sheet's problems, one line per kind, STOP first: the planter checks, the empty returns and
@@ -112,7 +122,7 @@ export function sheetCheckGroups(input: {
 	const drives = input.checks.filter((c) => c.problem === 'drive_back_empty');
 	const rest = input.checks.filter((c) => c.problem !== 'drive_back_empty');
 	const findings = [...(input.other ?? []), ...rest].map((c) => ({ kind: 'problem' in c ? (c as EquipmentCheck).problem : c.kind, laneIndex: c.laneIndex, message: c.message, severity: c.severity }));
-	const planter = condenseFindings(findings);
+	const planter = condenseFindings(findings, { words: SHEET_PROBLEM_WORDS });
 	const drive = driveBackGroup(drives, input.passes, input.lanes);
 	const all = [...planter.filter((g) => g.severity === 'stop'), ...planter.filter((g) => g.severity !== 'stop'), ...(drive ? [drive] : []), ...fitGroups(input.fit, input.lanes)];
 	return all;

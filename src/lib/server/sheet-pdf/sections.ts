@@ -61,7 +61,7 @@ function drawLaneGroups(w: SheetWriter, data: SheetData, styles: Map<string, Cro
 		const style = styleOf(styles, g.crop);
 		return [
 			{ text: laneGroupLabel(g), bold: true },
-			{ text: g.kind === 'crop' ? g.crop : `${g.kind}, ${g.crop}`, mark: { size: 10, draw: (x, y) => drawSwatch(w.doc, style, x, y, 10) } },
+			{ text: g.kind === 'crop' || g.kind === g.crop ? g.crop : `${g.kind}, ${g.crop}`, mark: { size: 10, draw: (x, y) => drawSwatch(w.doc, style, x, y, 10) } },
 			{ text: formatFeet(g.widthFt), bold: true },
 			g.rowSpacingIn ? `${g.rows} × ${g.rowSpacingIn} in` : String(g.rows),
 			formatAcres(g.acres),
@@ -73,14 +73,14 @@ function drawLaneGroups(w: SheetWriter, data: SheetData, styles: Map<string, Cro
 	drawTable(
 		w,
 		[
-			{ header: 'Lanes', width: 112 },
-			{ header: 'Crop', width: 72 },
+			{ header: 'Lanes', width: 120 },
+			{ header: 'Crop', width: 68 },
 			{ header: 'Width', width: 40, align: 'right' },
-			{ header: 'Rows', width: 56 },
-			{ header: 'Acres', width: 44, align: 'right' },
-			{ header: 'Variety', width: 110 },
-			{ header: 'Seeds/ac', width: 54, align: 'right' },
-			{ header: 'Trial', width: 52 }
+			{ header: 'Rows', width: 52 },
+			{ header: 'Acres', width: 46, align: 'right' },
+			{ header: 'Variety', width: 92 },
+			{ header: 'Seeds/ac', width: 56, align: 'right' },
+			{ header: 'Trial', width: 66 }
 		],
 		rows,
 		{ title: `Lanes, ${data.lanes.length} in all: lanes set up alike share a row`, size: 10, padY: 2 }
@@ -276,7 +276,7 @@ export function drawChecks(w: SheetWriter, data: SheetData, options: { appendix?
 }
 
 /** The start of a long line, cut at a word: "31 passes (1, 2, 3 … 31): Nitrogen (UAN 32 %) is on at row unit 9 …". */
-function firstWords(text: string, max = 64): string {
+function firstWords(text: string, max = 56): string {
 	if (text.length <= max) return text.replace(/\.$/, '');
 	const cut = text.slice(0, max);
 	return `${cut.slice(0, cut.lastIndexOf(' '))} …`;
@@ -328,12 +328,12 @@ export function drawQuantities(w: SheetWriter, data: SheetData): void {
 	drawTable(
 		w,
 		[
-			{ header: 'What', width: 140 },
-			{ header: 'Amount', width: 140 },
-			{ header: 'How it was worked out (arithmetic from entered rates)', width: 260 }
+			{ header: 'What', width: 135 },
+			{ header: 'Amount', width: 120 },
+			{ header: 'How it was worked out', width: 285 }
 		],
 		data.quantities.map((q) => [{ text: q.label, bold: true, size: 9.5 }, { text: q.amount, bold: true, size: 9.5 }, { text: q.detail ?? '', size: 8.5 }]),
-		{ title: 'Quantities', size: 10, padY: 2 }
+		{ title: 'Quantities (arithmetic from the rates entered, not recommendations)', size: 10, padY: 2 }
 	);
 }
 
