@@ -4,6 +4,7 @@ import { createField, updateField } from '$lib/server/fields';
 import { adoptVariant, getPlan, savePlan } from '$lib/server/plans';
 import { createEquipment } from '$lib/server/equipment';
 import { loadSheet } from '$lib/server/sheet';
+import { checkGroupsOf } from '$lib/sheet/condensed';
 import { requireMember } from '$lib/server/access';
 import { equipmentSchema } from '$lib/schemas/equipment';
 import type { SessionUser } from '$lib/server/auth';
@@ -194,15 +195,15 @@ describe('the plan page', () => {
 		expect(acresFrom(second.rotation.rotation, 'corn', 'soybean')).toBeCloseTo((await getPlan(access, field.id, 2026)).byCrop.soybean.acres, 1);
 		expect(acresFrom(second.rotation.rotation, 'soybean', 'corn')).toBe(0);
 		expect(second.planterChecks?.planter).toBe('Sixteen-row test planter');
-		// The page carries the first five stops and counts; the sheet has the full lists.
+		// The page carries the first five stops and the other checks, each kind said once as the sheet
+		// prints them; the sheet's appendix has the full lists.
 		const sheet = await loadSheet(access, field.id, 2026);
-		const stops = sheet.checks.filter((c) => c.severity === 'stop').map((c) => c.message);
+		const groups = checkGroupsOf(sheet);
+		const stops = groups.filter((c) => c.severity === 'stop').map((c) => c.summary);
 		expect(stops.length).toBeGreaterThan(0);
-		expect(second.planterChecks).toEqual({
-			planter: 'Sixteen-row test planter',
-			stopCount: stops.length,
-			firstStops: stops.slice(0, 5),
-			warningCount: sheet.checks.filter((c) => c.severity === 'warn').length
-		});
+		const warnings = groups.filter((c) => c.severity === 'warn');
+		expect(second.planterChecks).toEqual({ planter: 'Sixteen-row test planter', stopCount: stops.length, firstStops: stops.slice(0, 5), warningCount: warnings.length, warnings });
+		// Nitrogen left on at every soybean unit: one STOP line naming the units, not one per pass.
+		expect(stops.some((m) => /Nitrogen is on at row units 9–16 over \d+ soybean lanes/.test(m) || /Nitrogen is on at row units 9–16 over lane \d+ \(soybean\)/.test(m))).toBe(true);
 	});
 });
