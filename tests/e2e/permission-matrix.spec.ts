@@ -106,7 +106,7 @@ function fill(route: RouteMethod, ids: Ids): { path: string; missing: string[] }
 }
 
 function classify(status: number, location: string): Outcome {
-	if (status >= 300 && status < 400) return location.startsWith('/sign-in') ? 'sign-in' : 'ok';
+	if (status >= 300 && status < 400) return location.startsWith('/sign-in') ? 'sign-in' : 'redirect';
 	if (status >= 200 && status < 300) return 'ok';
 	if (status === 401) return 'sign-in';
 	if (status === 403) return 'forbidden';
@@ -116,7 +116,7 @@ function classify(status: number, location: string): Outcome {
 	return 'other';
 }
 
-async function call(request: APIRequestContext, method: string, path: string, origin: string): Promise<{ status: number; outcome: Outcome; text: string }> {
+async function call(request: APIRequestContext, method: string, path: string, origin: string): Promise<{ status: number; outcome: Outcome; text: string; location: string }> {
 	const isApi = path.startsWith('/api/');
 	const headers: Record<string, string> = { origin };
 	let data: unknown;
@@ -130,7 +130,8 @@ async function call(request: APIRequestContext, method: string, path: string, or
 	const res = await request.fetch(path, { method, headers, data, form, maxRedirects: 0, failOnStatusCode: false });
 	const type = res.headers()['content-type'] ?? '';
 	const text = res.ok() && /json|html|csv|text|xml/.test(type) ? await res.text() : '';
-	return { status: res.status(), outcome: classify(res.status(), res.headers()['location'] ?? ''), text };
+	const location = res.headers()['location'] ?? '';
+	return { status: res.status(), outcome: classify(res.status(), location), text, location };
 }
 
 interface Tally {
@@ -249,8 +250,8 @@ test('every route answers each caller as the permission matrix says', async ({ p
 				const awaiting = AWAITING_FIX[name];
 				if (awaiting) {
 					if (got.status !== awaiting.status) stillAwaiting.push(`${name}: now answers ${got.status}; remove it from AWAITING_FIX`);
-				} else if (!satisfies(expected, got.outcome, caller, route.method)) {
-					wrong.push(`${name} (${route.method} ${path}): expected ${expected}, got ${got.status}`);
+				} else if (!satisfies(expected, got.outcome, caller, route, got.location)) {
+					wrong.push(`${name} (${route.method} ${path}): expected ${expected}, got ${got.status}${got.location ? ` to ${got.location}` : ''}`);
 				}
 				if (caller === 'viewer' && got.text) {
 					const shown = hidden.filter((h) => got.text.includes(h));

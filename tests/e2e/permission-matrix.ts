@@ -15,7 +15,7 @@ export type Role = 'owner' | 'manager' | 'crew' | 'advisor' | 'viewer';
  */
 export type Caller = 'anonymous' | 'visitor' | 'outsider' | 'outsiderCrossFarm' | Role | 'viewerNoGrant' | 'viewerCrossField';
 export const CALLERS: Caller[] = ['owner', 'manager', 'crew', 'advisor', 'viewer', 'viewerNoGrant', 'viewerCrossField', 'outsider', 'outsiderCrossFarm', 'visitor', 'anonymous'];
-export type Outcome = 'ok' | 'sign-in' | 'forbidden' | 'not-found' | 'invalid' | 'error' | 'other';
+export type Outcome = 'ok' | 'redirect' | 'sign-in' | 'forbidden' | 'not-found' | 'invalid' | 'error' | 'other';
 
 /**
  * public: anyone, signed in or not. signedIn: any account. shareLink: a visitor's tour link; the
@@ -71,13 +71,27 @@ export function expectedOutcome(rule: Rule, caller: Caller, method: string): Out
 	return write ? 'skip' : 'ok';
 }
 
+/** Allowed reads whose answer is a redirect (other than to the sign-in page), and where it leads. */
+export const REDIRECTING_READS: Record<string, RegExp> = {
+	// Signed in, the front page and the sign-in and sign-up pages lead on to one's farms.
+	'GET /': /^\/farms$/,
+	'GET /sign-in': /^\/farms$/,
+	'GET /sign-up': /^\/farms$/,
+	// Signing out is a form post; opening its address only leads home.
+	'GET /sign-out': /^\/$/,
+	'GET /farms/switch': /^\/farms\/[0-9a-f-]{36}$/
+};
+
 /**
  * Whether what came back is what the rule asks. One allowance: a write sent with the outsider's
  * own farm id and another farm's row id may be refused as bad input (400) before the row is looked
  * up, which reveals nothing either; it must never succeed, be forbidden or fail.
  */
-export function satisfies(expected: Outcome, got: Outcome, caller: Caller, method: string): boolean {
+export function satisfies(expected: Outcome, got: Outcome, caller: Caller, route: RouteMethod, location = ''): boolean {
 	if (got === expected) return true;
+	const method = route.method;
+	// A page that sends its reader on elsewhere must say so here: a refusal must not hide as a redirect.
+	if (expected === 'ok' && got === 'redirect') return REDIRECTING_READS[route.key]?.test(location) ?? false;
 	return caller === 'outsiderCrossFarm' && method !== 'GET' && expected === 'not-found' && got === 'invalid';
 }
 
