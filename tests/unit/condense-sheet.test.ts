@@ -5,7 +5,7 @@ import { implementChecks } from '$lib/equipment/index';
 import type { SheetLane } from '$lib/sheet/types';
 
 const nitrogen = (pass: number, lane: number) => ({
-	kind: 'fertilizer_wrong_crop',
+	kind: 'fertilizer_wrong_crop' as const,
 	severity: 'stop' as const,
 	laneIndex: lane - 1,
 	message: `Pass ${pass} (from A): Nitrogen is on at row unit 9 over lane ${lane} (soybean), but that line is meant for corn. Turn it off at that unit or re-plumb the line.`
@@ -66,7 +66,7 @@ describe('what a sheet problem costs', () => {
 	});
 
 	it('says ground covered twice and neighbouring lanes reached, per implement, with every lane in the details', () => {
-		const reports = implementChecks(lanes.map((l) => ({ ...l, kind: 'crop' as const, crop: l.index % 2 ? 'soybean' : 'corn', offsetFt: l.index * 20 })), [
+		const reports = implementChecks(lanes.map((l) => ({ ...l, kind: 'crop' as const, crop: l.index % 2 ? 'soybean' : 'corn', rows: 8, offsetFt: l.index * 20 })), [
 			{ name: '15-ft drill', kind: 'drill', workingWidthFt: 15 },
 			{ name: '60-ft sprayer', kind: 'sprayer', workingWidthFt: 60 }
 		]);
