@@ -92,7 +92,7 @@ test('log a spraying pass on all corn lanes from the form, see it on the season,
 	await expect(history).toHaveCount(4);
 	await expect(history.nth(0)).toContainText('Logged by Test records');
 	await expect(history.nth(1)).toContainText('Edited by Test records');
-	await expect(history.nth(1)).toContainText('notes: null → "Boom height checked"');
+	await expect(history.nth(1)).toContainText('Notes: (blank) → "Boom height checked"');
 	await expect(history.nth(2)).toContainText('Deleted by');
 	await expect(history.nth(3)).toContainText('Restored by');
 });
