@@ -35,7 +35,7 @@ export async function planStamp(access: FarmAccess, fieldId: string, season: num
 	const q = seasonPlanQuery(access, fieldId, season, variant);
 	if (!q) return null;
 	stamps.watch(db());
-	return stamps.get(`${access.farm.id}:${fieldId}:${season}:${variant?.toLowerCase() ?? ''}`, async () => {
+	return stamps.get(`${access.farm.id}:${fieldId}:${season}:${variant ?? ''}`, async () => {
 		const row = await q.options({ name: variant ? 'plan_stamp_variant' : 'plan_stamp' }).first(
 			'p.id',
 			'p.version',
