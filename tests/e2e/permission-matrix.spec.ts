@@ -116,9 +116,11 @@ function classify(status: number, location: string): Outcome {
 	return 'other';
 }
 
-async function call(request: APIRequestContext, method: string, path: string, origin: string): Promise<{ status: number; outcome: Outcome; text: string; location: string }> {
+async function call(request: APIRequestContext, method: string, path: string, origin: string, refused: boolean): Promise<{ status: number; outcome: Outcome; text: string; location: string }> {
 	const isApi = path.startsWith('/api/');
 	const headers: Record<string, string> = { origin };
+	// A refused read must stay refused even for a client that claims to hold the current version.
+	if (refused && method === 'GET') headers['if-none-match'] = '*';
 	let data: unknown;
 	let form: Record<string, string> | undefined;
 	if (method !== 'GET' && method !== 'DELETE') {
@@ -129,7 +131,7 @@ async function call(request: APIRequestContext, method: string, path: string, or
 	if (!isApi && method === 'POST') headers.accept = 'text/html';
 	const res = await request.fetch(path, { method, headers, data, form, maxRedirects: 0, failOnStatusCode: false });
 	const type = res.headers()['content-type'] ?? '';
-	const text = res.ok() && /json|html|csv|text|xml/.test(type) ? await res.text() : '';
+	const text = /json|html|csv|text|xml/.test(type) ? await res.text() : '';
 	const location = res.headers()['location'] ?? '';
 	return { status: res.status(), outcome: classify(res.status(), location), text, location };
 }
@@ -155,7 +157,7 @@ test('every route answers each caller as the permission matrix says', async ({ p
 	const routes = discoverRoutes().filter((r) => r.key in RULES);
 
 	const knex = knexFactory({ client: 'pg', connection: process.env.DATABASE_URL });
-	let granted: Ids, ungranted: Ids, tourTitle: string, equipmentNames: string[], otherEmails: string[];
+	let granted: Ids, ungranted: Ids, tourTitle: string, equipmentNames: string[], otherEmails: string[], farmNames: string[];
 	try {
 		// Roles that see every field read North 80 (the richest demo field); the viewer reads the field
 		// it is granted; the same viewer without a grant is sent North 80's and the pasture's rows.
@@ -165,6 +167,10 @@ test('every route answers each caller as the permission matrix says', async ({ p
 		// The demo farm shows viewers neither its equipment nor its members' e-mail addresses.
 		const privacy = await knex('farms').where({ id: DEMO_FARM_ID }).first('viewers_see_equipment', 'viewers_see_member_emails');
 		expect(privacy).toEqual({ viewers_see_equipment: false, viewers_see_member_emails: false });
+		farmNames = [
+			(await knex('farms').where({ id: DEMO_FARM_ID }).first('name')).name,
+			...((await knex('fields').where({ farm_id: DEMO_FARM_ID }).pluck('name')) as string[])
+		];
 		equipmentNames = (await knex('equipment').where({ farm_id: DEMO_FARM_ID }).whereNull('deleted_at').pluck('name')) as string[];
 		otherEmails = (await knex('memberships as m').join('users as u', 'u.id', 'm.user_id')
 			.where({ 'm.farm_id': DEMO_FARM_ID }).whereNot('m.role', 'viewer').pluck('u.email')) as string[];
@@ -222,6 +228,11 @@ test('every route answers each caller as the permission matrix says', async ({ p
 	expect(otherEmails).toContain(demoEmail('crew'));
 	const leaks: string[] = [];
 	let grantedFieldShown = 0;
+	// Nobody outside the farm learns its name or its fields' names from any answer, refusals included
+	// (the visitor's tour pages excepted: they show the fields on the tour).
+	const strangers: Caller[] = ['outsider', 'outsiderCrossFarm', 'visitor', 'anonymous'];
+	expect(farmNames.length).toBe(4);
+	let tourNamesFields = 0;
 	const wrong: string[] = [];
 	const stillAwaiting: string[] = [];
 	const tally = {} as Record<Caller, Tally>;
@@ -244,7 +255,7 @@ test('every route answers each caller as the permission matrix says', async ({ p
 					t.noDemoRow++;
 					continue;
 				}
-				const got = await call(ctx, route.method, path, origin);
+				const got = await call(ctx, route.method, path, origin, expected !== 'ok');
 				t.checked++;
 				const name = `${route.key} as ${caller}`;
 				const awaiting = AWAITING_FIX[name];
@@ -253,7 +264,12 @@ test('every route answers each caller as the permission matrix says', async ({ p
 				} else if (!satisfies(expected, got.outcome, caller, route, got.location)) {
 					wrong.push(`${name} (${route.method} ${path}): expected ${expected}, got ${got.status}${got.location ? ` to ${got.location}` : ''}`);
 				}
-				if (caller === 'viewer' && got.text) {
+				if (strangers.includes(caller) && got.text) {
+					const shown = farmNames.filter((h) => got.text.includes(h));
+					if (caller === 'visitor' && rule === 'shareLink') tourNamesFields += shown.length ? 1 : 0;
+					else if (shown.length) leaks.push(`${route.key} shows the ${caller} ${shown.join(', ')}`);
+				}
+				if (caller === 'viewer' && got.status < 300 && got.text) {
 					const shown = hidden.filter((h) => got.text.includes(h));
 					if (shown.length) leaks.push(`${route.key} shows the viewer ${shown.join(', ')}`);
 					if (got.text.includes('Creek Bend')) grantedFieldShown++;
@@ -269,8 +285,9 @@ test('every route answers each caller as the permission matrix says', async ({ p
 	}
 	console.log(`  total ${CALLERS.reduce((n, c) => n + tally[c].checked, 0)} calls checked`);
 	expect(wrong, 'calls answered against the permission matrix').toEqual([]);
-	expect(leaks, 'what the viewer may not see, shown to it').toEqual([]);
+	expect(leaks, 'what the caller may not see, shown to it').toEqual([]);
 	expect(grantedFieldShown, 'answers to the viewer naming its own field, Creek Bend').toBeGreaterThan(20);
+	expect(tourNamesFields, 'tour pages naming the fields on the tour, to the visitor').toBe(2);
 	expect(stillAwaiting).toEqual([]);
 	for (const caller of CALLERS) expect(tally[caller].checked, `calls checked as ${caller}`).toBeGreaterThan(caller === 'viewerCrossField' ? 10 : 50);
 	for (const ctx of contexts) await ctx.dispose();
