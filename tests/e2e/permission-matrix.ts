@@ -8,13 +8,14 @@ export type Role = 'owner' | 'manager' | 'crew' | 'advisor' | 'viewer';
 /**
  * Who calls. The five roles are members of the demo farm; `viewer` reads a field granted to it,
  * `viewerNoGrant` is the same viewer on a field it was not granted, and `viewerCrossField` sends the
- * granted field's id with rows of a field it was not granted. `outsider` is signed in with a
+ * granted field's id with rows of a field it was not granted; `ownerCrossField` is the owner doing
+ * the same (one field's id beside another field's row must not reach that row). `outsider` is signed in with a
  * farm of its own and sends the demo farm's ids; `outsiderCrossFarm` is the same account sending
  * its own farm id with the demo farm's row ids. `visitor` holds a working share link and no
  * session; `anonymous` holds nothing.
  */
-export type Caller = 'anonymous' | 'visitor' | 'outsider' | 'outsiderCrossFarm' | Role | 'viewerNoGrant' | 'viewerCrossField';
-export const CALLERS: Caller[] = ['owner', 'manager', 'crew', 'advisor', 'viewer', 'viewerNoGrant', 'viewerCrossField', 'outsider', 'outsiderCrossFarm', 'visitor', 'anonymous'];
+export type Caller = 'anonymous' | 'visitor' | 'outsider' | 'outsiderCrossFarm' | Role | 'viewerNoGrant' | 'viewerCrossField' | 'ownerCrossField';
+export const CALLERS: Caller[] = ['owner', 'ownerCrossField', 'manager', 'crew', 'advisor', 'viewer', 'viewerNoGrant', 'viewerCrossField', 'outsider', 'outsiderCrossFarm', 'visitor', 'anonymous'];
 export type Outcome = 'ok' | 'redirect' | 'sign-in' | 'forbidden' | 'not-found' | 'invalid' | 'error' | 'other';
 
 /**
@@ -48,7 +49,9 @@ export function applies(rule: Rule, caller: Caller, routePath: string): boolean 
 	// The ungranted viewer differs from the viewer only where a row belongs to a field.
 	if (caller === 'viewerNoGrant') return typeof rule === 'object' && rule.field === true;
 	// A granted field in the path must not open another field's row named beside it.
-	if (caller === 'viewerCrossField') return typeof rule === 'object' && rule.field === true && /\[fieldId\].*\[(?!season\])\w+\]/.test(routePath);
+	if (caller === 'viewerCrossField' || caller === 'ownerCrossField') {
+		return typeof rule === 'object' && rule.field === true && /\[fieldId\].*\[(?!season\])\w+\]/.test(routePath);
+	}
 	// Another farm's row ids under the outsider's own farm id: only routes that name a row.
 	if (caller === 'outsiderCrossFarm') return typeof rule === 'object' && /\[(?!farmId\]|season\])\w+\]/.test(routePath);
 	return true;
@@ -63,7 +66,7 @@ export function expectedOutcome(rule: Rule, caller: Caller, method: string): Out
 	if (rule === 'public') return write ? 'skip' : 'ok';
 	if (caller === 'anonymous' || caller === 'visitor') return 'sign-in';
 	if (rule === 'signedIn') return write ? 'skip' : 'ok';
-	if (caller === 'outsider' || caller === 'outsiderCrossFarm') return 'not-found';
+	if (caller === 'outsider' || caller === 'outsiderCrossFarm' || caller === 'ownerCrossField') return 'not-found';
 	const role: Role = caller === 'viewerNoGrant' || caller === 'viewerCrossField' ? 'viewer' : caller;
 	if (!ROLE_CAPS[role].includes(rule.cap)) return 'forbidden';
 	if (rule.viewerHidden && role === 'viewer') return 'not-found';
@@ -83,16 +86,16 @@ export const REDIRECTING_READS: Record<string, RegExp> = {
 };
 
 /**
- * Whether what came back is what the rule asks. One allowance: a write sent with the outsider's
- * own farm id and another farm's row id may be refused as bad input (400) before the row is looked
- * up, which reveals nothing either; it must never succeed, be forbidden or fail.
+ * Whether what came back is what the rule asks. One allowance: a write naming a row under the wrong
+ * farm or field (the cross callers) may be refused as bad input (400) before the row is looked up,
+ * which reveals nothing either; it must never succeed, be forbidden or fail.
  */
 export function satisfies(expected: Outcome, got: Outcome, caller: Caller, route: RouteMethod, location = ''): boolean {
 	if (got === expected) return true;
 	const method = route.method;
 	// A page that sends its reader on elsewhere must say so here: a refusal must not hide as a redirect.
 	if (expected === 'ok' && got === 'redirect') return REDIRECTING_READS[route.key]?.test(location) ?? false;
-	return caller === 'outsiderCrossFarm' && method !== 'GET' && expected === 'not-found' && got === 'invalid';
+	return (caller === 'outsiderCrossFarm' || caller === 'ownerCrossField') && method !== 'GET' && expected === 'not-found' && got === 'invalid';
 }
 
 export interface RouteMethod {
