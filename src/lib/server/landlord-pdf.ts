@@ -9,6 +9,7 @@ import { drawParagraph, drawReportTitle, renderReportPdf } from './report-pdf';
 import type { LandlordSummary } from './landlord';
 import { dayInZone } from '../reports/acreage';
 import { laneRanges } from '../reports/lanes';
+import { RECORD_TYPE_LABELS, type RecordType } from '../schemas/records';
 
 const ac = (n: number) => `${n.toFixed(2)} ac`;
 const num = (n: number) => new Intl.NumberFormat('en-US', { maximumFractionDigits: 2 }).format(n);
@@ -43,7 +44,7 @@ export async function renderLandlordPdf(s: LandlordSummary, farmName: string, ti
 				[{ header: 'Dates', width: 90 }, { header: 'Work', width: 70 }, { header: 'Lanes', width: 70 }, { header: 'Acres', width: 60, align: 'right' }, { header: 'Products, rates and totals', width: 250 }],
 				s.operations.map((o) => [
 					o.startedOn === o.endedOn ? o.startedOn : `${o.startedOn} to ${o.endedOn}`,
-					o.type,
+					RECORD_TYPE_LABELS[o.type as RecordType] ?? o.type,
 					laneRanges(o.lanes),
 					ac(o.acres),
 					o.products.length ? o.products.map((p) => `${p.name}${p.epaRegNo ? ` (EPA ${p.epaRegNo})` : ''}: ${num(p.rate)} ${p.rateUnit}, ${num(p.total)} ${p.totalUnit}`).join('; ') : '-'
@@ -59,7 +60,7 @@ export async function renderLandlordPdf(s: LandlordSummary, farmName: string, ti
 			drawTable(
 				w,
 				[{ header: 'Crop', width: 120 }, { header: 'Weighed', width: 70, align: 'right' }, { header: 'Harvested', width: 100, align: 'right' }, { header: 'Bushels', width: 100, align: 'right' }, { header: 'Yield', width: 120, align: 'right' }],
-				s.harvest.map((h) => [h.crop, `${h.entries}`, ac(h.harvestedAcres), `${num(h.bushels)} bu`, `${num(h.bushelsPerAcre)} bu/ac at ${num(h.standardMoisturePct)} %`]),
+				s.harvest.map((h) => [h.crop, `${h.entries} ${h.entries === 1 ? 'load' : 'loads'}`, ac(h.harvestedAcres), `${num(h.bushels)} bu`, `${num(h.bushelsPerAcre)} bu/ac at ${num(h.standardMoisturePct)} %`]),
 				{ title: 'Harvest', size: 10 }
 			);
 		} else {
