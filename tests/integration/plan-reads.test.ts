@@ -196,12 +196,13 @@ describe('the plan page', () => {
 		expect(acresFrom(second.rotation.rotation, 'soybean', 'corn')).toBe(0);
 		expect(second.planterChecks?.planter).toBe('Sixteen-row test planter');
 		// The page carries the first five stops and the other checks, each kind said once as the sheet
-		// prints them; the sheet's appendix has the full lists.
+		// prints them, without their findings one by one: the sheet's appendix has the full lists.
 		const sheet = await loadSheet(access, field.id, 2026);
 		const groups = checkGroupsOf(sheet);
 		const stops = groups.filter((c) => c.severity === 'stop').map((c) => c.summary);
 		expect(stops.length).toBeGreaterThan(0);
-		const warnings = groups.filter((c) => c.severity === 'warn');
+		const warnings = groups.filter((c) => c.severity === 'warn').map((c) => ({ ...c, details: [] }));
+		expect(warnings.length).toBeGreaterThan(0);
 		expect(second.planterChecks).toEqual({ planter: 'Sixteen-row test planter', stopCount: stops.length, firstStops: stops.slice(0, 5), warningCount: warnings.length, warnings });
 		// Nitrogen left on at every soybean unit: one STOP line naming the units, not one per pass.
 		expect(stops.some((m) => /Nitrogen is on at row units 9–16 over \d+ soybean lanes/.test(m) || /Nitrogen is on at row units 9–16 over lane \d+ \(soybean\)/.test(m))).toBe(true);

@@ -77,7 +77,9 @@ async function checksFromSheet(access: FarmAccess, fieldId: string, season: numb
 		// Said once per kind, as the sheet prints them: "31 passes (1, 2, 3 … 31): Nitrogen is on …".
 		const groups = checkGroupsOf(sheet);
 		const stops = groups.filter((c) => c.severity === 'stop').map((c) => c.summary);
-		const warnings = groups.filter((c) => c.severity === 'warn');
+		// Each kind's one line only: its every finding is on the sheet's full lists, and shipping them
+		// here doubled the page's weight for a box most people never open.
+		const warnings = groups.filter((c) => c.severity === 'warn').map((c) => ({ ...c, details: [] }));
 		return { planter: sheet.equipment?.name ?? null, stopCount: stops.length, firstStops: stops.slice(0, 5), warningCount: warnings.length, warnings };
 	} catch (e) {
 		if (!(e instanceof AppError)) throw e;
