@@ -51,3 +51,16 @@ test.describe('the page never runs off the side', () => {
 		expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
 	});
 });
+
+test('a printed season page carries the lane map without its zoom buttons', async ({ page }) => {
+	const { farmId } = await ownFarm(page, 'print-map');
+	const { boundary, guidance } = eightyAcres();
+	const fieldId = await ownField(page.request, farmId, 'Print 80', boundary);
+	await ownPlan(page.request, farmId, fieldId, SEASON, { guidance, pattern: [CORN_8, SOYBEAN_8], offsetFt: 0, headlandFt: 0 });
+	await page.goto(`/farms/${farmId}/fields/${fieldId}/seasons/${SEASON}`);
+	const zoom = page.locator('.leaflet-control-zoom').first();
+	await expect(zoom).toBeVisible();
+	await page.emulateMedia({ media: 'print' });
+	await expect(page.locator('.leaflet-container').first()).toBeVisible();
+	await expect(zoom).toBeHidden();
+});
