@@ -64,3 +64,14 @@ test('a printed season page carries the lane map without its zoom buttons', asyn
 	await expect(page.locator('.leaflet-container').first()).toBeVisible();
 	await expect(zoom).toBeHidden();
 });
+
+test('a row header cell is ruled like the rest of its row', async ({ page }) => {
+	const { farmId } = await ownFarm(page, 'rules');
+	const { boundary, guidance } = eightyAcres();
+	const fieldId = await ownField(page.request, farmId, 'Ruled 80', boundary);
+	await ownPlan(page.request, farmId, fieldId, SEASON, { guidance, pattern: [CORN_8, SOYBEAN_8], offsetFt: 0, headlandFt: 0 });
+	await page.goto(`/farms/${farmId}/records`);
+	const row = page.getByTestId('record-book-grid').locator('tbody tr').first();
+	const rule = (cell: 'th' | 'td') => row.locator(cell).first().evaluate((el) => { const s = getComputedStyle(el); return `${s.borderBottomWidth} ${s.borderBottomColor}`; });
+	expect(await rule('th')).toBe(await rule('td'));
+});
