@@ -69,7 +69,63 @@ async function demoAccess() {
 	return requireMember(fakeEvent({ id: owner.id, name: owner.name, email: owner.email } as never), DEMO_FARM_ID, 'read');
 }
 
+/** Every field and season of the demo farm with an adopted plan. */
+async function demoPlans(): Promise<{ fieldId: string; name: string; season: number }[]> {
+	return db()('plans as p')
+		.join('fields as f', 'f.id', 'p.field_id')
+		.where({ 'f.farm_id': DEMO_FARM_ID, 'p.adopted': true })
+		.orderBy([{ column: 'f.name' }, { column: 'p.season' }])
+		.select('f.id as fieldId', 'f.name as name', 'p.season as season');
+}
+
 describe('the cab sheet on one sheet of paper', () => {
+	it('prints every demo field and season with an adopted plan on two pages, with every pass ticked and the full lists in the appendix', async () => {
+		const access = await demoAccess();
+		const plans = await demoPlans();
+		// The demo's three fields, each with adopted plans for 2026 and 2027 at least.
+		for (const name of ['Creek Bend', 'North 80', 'Shelter Lanes']) {
+			expect(plans.filter((p) => p.name === name).map((p) => p.season)).toEqual(expect.arrayContaining([2026, 2027]));
+		}
+		const counts: string[] = [];
+		for (const plan of plans) {
+			const sheet = await loadSheet(access, plan.fieldId, plan.season);
+			const pages = await pdfPages(await renderSheetPdf(sheet, { timeZone: 'America/Chicago' }));
+			counts.push(`${plan.name} ${plan.season}: ${pages.length}`);
+			const text = pages.join('\n');
+			const flat = text.replace(/\s+/g, ' ');
+			// Every STOP item whole in the box, every caution, every pass once in the grid.
+			for (const stop of sheet.checkGroups!.filter((g) => g.severity === 'stop')) expect(flat).toContain(stop.summary.replace(/\s+/g, ' '));
+			for (const caution of sheet.cautions) expect(flat).toContain(caution);
+			const passNumbers = [...text.matchAll(/(?:^| )(\d+) [AB] (?:\d+(?:–\d+)?(?:, \d+)*|none)(?: \*)? (?:[a-z]\d?|\d+)(?= |$)/gm)].map((m) => Number(m[1]));
+			expect(passNumbers).toEqual(sheet.passes.map((p) => p.number));
+
+			const full = await pdfPages(await renderSheetPdf(sheet, { timeZone: 'America/Chicago', appendix: true }));
+			const appendix = full.slice(pages.length).join('\n');
+			expect(appendix).toContain('Appendix: the full lists');
+			expect(appendix.match(/^Lane \d+ (crop|pasture|cover|buffer) /gm)).toHaveLength(sheet.lanes.length);
+			expect(appendix.match(/^Pass \d+ from [AB] /gm)).toHaveLength(sheet.passes.length);
+		}
+		expect(counts.filter((c) => !c.endsWith(': 1') && !c.endsWith(': 2'))).toEqual([]);
+	}, 120_000);
+
+	it('names each setup of a planter that does not suit its lanes by a letter, each pass with its own tick box', async () => {
+		const access = await demoAccess();
+		const creek = (await demoPlans()).find((p) => p.name === 'Creek Bend' && p.season === 2027)!;
+		const sheet = await loadSheet(access, creek.fieldId, 2027);
+		expect(sheet.lanes).toHaveLength(33);
+		expect(sheet.passes).toHaveLength(139);
+		const pages = await pdfPages(await renderSheetPdf(sheet, { timeZone: 'America/Chicago' }));
+		expect(pages).toHaveLength(2);
+		const text = pages.join('\n');
+		expect(text).toContain('Passes, 139 in driving order: read across, tick each when done');
+		expect(text).toMatch(/^1 A 1 a 2 B 1 b 3 A 1–2 a 4 B 1–2 c 5 A 2 d 6 B 1–2 c$/m);
+		expect(text).toMatch(/a · 4 on: units 1, 3, 5 and 7 corn \(hybrid A \(105-day\)\)/);
+		expect(text).toMatch(/c · 1 on: unit 8 corn \(hybrid A \(105-day\)\)/);
+		expect(text).toMatch(/^STOP: 1 problem to fix before planting$/m);
+		// Quantities keep their units beside the hazards.
+		expect(text.replace(/\s+/g, ' ')).toMatch(/Nitrogen \(UAN 32 %\) [\d,.]+ gal · [\d,.]+ lb N/);
+	});
+
 	it('prints the demo 63-lane plan on two pages, and every finding, lane and pass in the appendix', async () => {
 		const access = await demoAccess();
 		const sheet = await loadSheet(access, NORTH_80, 2027);

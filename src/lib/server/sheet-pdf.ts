@@ -10,10 +10,9 @@ import {
 	drawAppendix,
 	drawCautions,
 	drawChecks,
-	drawHazards,
+	drawHazardsAndQuantities,
 	drawLanesTable,
 	drawPasses,
-	drawQuantities,
 	drawRowUnits,
 	drawSignOff
 } from './sheet-pdf/sections';
@@ -84,8 +83,7 @@ export async function renderSheetPdf(sheet: SheetData, options: SheetPdfOptions 
 			drawPasses(w, sheet);
 		}
 		drawChecks(w, sheet, { appendix: options.appendix });
-		drawHazards(w, sheet);
-		drawQuantities(w, sheet);
+		drawHazardsAndQuantities(w, sheet);
 		drawSignOff(w);
 		drawCautions(w, sheet);
 		if (options.appendix) drawAppendix(w, sheet, styles);
@@ -101,9 +99,9 @@ export async function renderSheetPdf(sheet: SheetData, options: SheetPdfOptions 
 
 /** Facts on the left, lane map with its legend on the right. */
 function drawTopBlock(w: SheetWriter, sheet: SheetData, styles: Map<string, CropStyle>, timeZone?: string): void {
-	const factsWidth = 262;
+	const factsWidth = 200;
 	const gap = 14;
-	const mapHeight = 80;
+	const mapHeight = 60;
 	w.ensure(mapHeight + 40);
 	const top = w.y;
 	const factsBottom = drawFacts(w, sheet, { left: PAGE.left, top, width: factsWidth }, timeZone);

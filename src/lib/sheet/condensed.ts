@@ -66,7 +66,7 @@ export function driveBackGroup(drives: readonly Pick<EquipmentCheck, 'passNumber
 }
 
 /**
- * Implements that do not fit lanes, one line per implement and kind of misfit, with what it
+ * Implements that do not fit lanes, one line per implement (each kind of misfit in turn), with what it
  * costs: ground covered twice (a last pass overlapping the one before) or neighbouring lanes
  * reached (an implement wider than the lane).
  */
@@ -79,6 +79,7 @@ export function fitGroups(reports: readonly ImplementFitReport[], lanes: readonl
 			const key = `${Math.round(f.laneWidthFt * 100)}|${f.passes}|${Math.round(f.overhangEachSideIn)}|${Math.round(f.lastPassCoverage * 100)}`;
 			groups.set(key, [...(groups.get(key) ?? []), f]);
 		}
+		const mine: CondensedWarning[] = [];
 		for (const list of groups.values()) {
 			const f = list[0];
 			const overhang = f.overhangEachSideIn > 0;
@@ -93,7 +94,17 @@ export function fitGroups(reports: readonly ImplementFitReport[], lanes: readonl
 				? `${where}: wider than the lane, it reaches ${Math.round(f.overhangEachSideIn)} in onto each neighbour; about ${acresText(acres)} of neighbouring lanes under it in all.`
 				: `${where}: ${f.passes} passes a lane, the last overlapping the one before (it covers ${Math.round(f.lastPassCoverage * 100)} % of its width); about ${acresText(acres)} covered twice.`;
 			const details = list.map((x) => `${r.implement.name}: ${x.message}`);
-			out.push({ kind: overhang ? 'overhang' : 'partial_pass', severity: 'warn', summary, details, laneNumbers: list.map((x) => x.laneIndex + 1) });
+			mine.push({ kind: overhang ? 'overhang' : 'partial_pass', severity: 'warn', summary, details, laneNumbers: list.map((x) => x.laneIndex + 1) });
+		}
+		// One line per implement: its misfits on lanes of different widths follow one another.
+		if (mine.length > 0) {
+			const prefix = `${r.implement.name}: `;
+			out.push({
+				...mine[0],
+				summary: `${prefix}${mine.map((g) => g.summary.slice(prefix.length).replace(/\.$/, '')).join('; ')}.`,
+				details: mine.flatMap((g) => g.details),
+				laneNumbers: [...new Set(mine.flatMap((g) => g.laneNumbers))].sort((a, b) => a - b)
+			});
 		}
 	}
 	return out;
@@ -190,4 +201,49 @@ export function laneGroupLabel(g: Pick<LaneGroup, 'laneNumbers'>): string {
 /** `?appendix=1` (or true, yes, on) on the sheet page and sheet.pdf asks for the full lists. */
 export function wantsAppendix(url: URL): boolean {
 	return ['1', 'true', 'yes', 'on'].includes((url.searchParams.get('appendix') ?? '').toLowerCase());
+}
+
+/**
+ * Whether a pass grid names setups by letter: when the passes use more than two setups. One
+ * exception reads well as a footnote; several (a planter that does not suit the lanes) read
+ * better as a letter beside each pass.
+ */
+export function letteredPasses(passes: readonly Pick<SheetPass, 'number' | 'summary' | 'unitsOn'>[]): boolean {
+	return passSetupKeys(passes).keys.length > 2;
+}
+
+export interface PassSetupKey {
+	/** "a", "b" … in order of first use. */
+	letter: string;
+	setup: string;
+	/** The setup without its list of units off: "units 1, 3, 5 and 7 corn (hybrid A)". */
+	planting: string;
+	unitsOn: number;
+	passes: number[];
+}
+
+/** The n-th letter: a … z, then a2 … z2 (a field needs that many setups only in theory). */
+function setupLetter(n: number): string {
+	return `${String.fromCharCode(97 + (n % 26))}${n >= 26 ? Math.floor(n / 26) + 1 : ''}`;
+}
+
+/**
+ * Every setup the passes use, lettered in driving order, so a dense pass grid can name each
+ * pass's setup in one letter and say it once in the key.
+ */
+export function passSetupKeys(passes: readonly Pick<SheetPass, 'number' | 'summary' | 'unitsOn'>[]): { keys: PassSetupKey[]; letterOf: Map<number, string> } {
+	const byKey = new Map<string, PassSetupKey>();
+	const letterOf = new Map<number, string>();
+	for (const p of [...passes].sort((a, b) => a.number - b.number)) {
+		const setup = passSetup(p.summary);
+		const id = `${p.unitsOn}|${setup}`;
+		let key = byKey.get(id);
+		if (!key) {
+			key = { letter: setupLetter(byKey.size), setup, planting: setup.replace(/;\s*units? [^;]* off$/, '') || setup, unitsOn: p.unitsOn, passes: [] };
+			byKey.set(id, key);
+		}
+		key.passes.push(p.number);
+		letterOf.set(p.number, key.letter);
+	}
+	return { keys: [...byKey.values()], letterOf };
 }

@@ -49,7 +49,8 @@ export function toSheetQuantities(q: Omit<FieldQuantities, 'varieties'> & { vari
 		const n = f.poundsN === null ? '' : ` · ${formatNumber(f.poundsN, 1)} lb N`;
 		const analysis = f.poundsNPerAcre === null ? 'no analysis entered' : `${formatNumber(f.poundsPerGallon ?? 0, 2)} lb/gal (${f.densityBasis}) × ${formatNumber(f.percentN ?? 0)} % N = ${formatNumber(f.poundsNPerAcre, 2)} lb N/ac`;
 		return {
-			label: f.product ? `${f.product} (${f.lineName})` : f.lineName,
+			// A line named after its product ("Nitrogen (UAN 32 %)") is not named twice.
+			label: f.product && !f.lineName.toLowerCase().includes(f.product.toLowerCase()) ? `${f.product} (${f.lineName})` : f.lineName,
 			amount: `${formatNumber(f.gallons, 1)} gal${n}`,
 			detail: `${formatNumber(f.gallonsPerAcre, 1)} gal/ac (entered) × ${formatNumber(f.acres, 2)} ac where the line is on; ${analysis}.`
 		};

@@ -31,10 +31,10 @@ export function drawFacts(
 		[['Printed', formatPrintedAt(data.printedAt, timeZone)]],
 		[['Prepared by', data.preparedBy]]
 	];
-	const value: TextStyle = { size: 11 };
+	const value: TextStyle = { size: 9 };
 	let y = column.top + 2;
 	for (const row of facts) {
-		y += w.write(row.map(([k, v]) => `${k}: ${v}`).join(' · '), column.left, y, column.width, value) + 2;
+		y += w.write(row.map(([k, v]) => `${k}: ${v}`).join(' · '), column.left, y, column.width, value) + 1;
 	}
 	return y;
 }

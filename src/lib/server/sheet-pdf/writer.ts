@@ -130,14 +130,14 @@ export class SheetWriter {
 
 	/** Section heading kept on the same page as the next `keepWith` points of content. */
 	heading(text: string, keepWith = 40): void {
-		const style: TextStyle = { size: 13, bold: true };
+		const style: TextStyle = { size: 12, bold: true };
 		const height = this.measure(text, PAGE.contentWidth, style);
-		this.ensure(6 + height + 6 + keepWith);
-		if (this.y > PAGE.top) this.gap(6);
+		this.ensure(4 + height + 4 + keepWith);
+		if (this.y > PAGE.top) this.gap(4);
 		this.write(text, PAGE.left, this.y, PAGE.contentWidth, style);
 		this.y += height;
 		this.doc.lineWidth(1.5).strokeColor(INK).moveTo(PAGE.left, this.y).lineTo(PAGE.right, this.y).stroke();
-		this.y += 4;
+		this.y += 3;
 	}
 
 	/** Wrapped paragraph at the cursor, moved whole to the next page if it does not fit. */
