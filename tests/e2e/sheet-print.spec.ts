@@ -33,6 +33,59 @@ async function sheetPdf(request: APIRequestContext, path: string): Promise<strin
 	return pdfPages(await res.body());
 }
 
+test('every demo field and season with an adopted plan prints on two pages, page and PDF; the full lists keep every lane and pass', async ({ page }) => {
+	test.setTimeout(240_000);
+	await apiSignIn(page.request, 'manager');
+	const fields = (await (await page.request.get(`/api/farms/${DEMO_FARM_ID}/fields`)).json()) as { id: string; name: string }[];
+	const sheets: { field: { id: string; name: string }; season: number }[] = [];
+	for (const field of fields) {
+		const plans = (await (await page.request.get(`/api/farms/${DEMO_FARM_ID}/fields/${field.id}/plans`)).json()) as { season: number; adopted: boolean }[];
+		for (const plan of plans.filter((p) => p.adopted)) sheets.push({ field, season: plan.season });
+	}
+	for (const name of ['Creek Bend', 'North 80', 'Shelter Lanes']) {
+		expect(sheets.filter((s) => s.field.name === name).map((s) => s.season)).toEqual(expect.arrayContaining([2026, 2027]));
+	}
+	const counts: Record<string, [number, number]> = {};
+	for (const { field, season } of sheets) {
+		const path = `/farms/${DEMO_FARM_ID}/fields/${field.id}/plans/${season}/sheet`;
+		const pdfPath = `/api/farms/${DEMO_FARM_ID}/fields/${field.id}/plans/${season}/sheet.pdf`;
+		await page.goto(path);
+		await expect(page.getByRole('heading', { level: 1 })).toHaveText(`Seeding sheet — ${field.name} ${season}`);
+		const onPage = (await printed(page)).length;
+		const asPdf = (await sheetPdf(page.request, pdfPath)).length;
+		counts[`${field.name} ${season}`] = [onPage, asPdf];
+		// Every pass keeps its own tick box on the sheet.
+		const ticks = await page.getByTestId('sheet-passes').getByRole('checkbox').count();
+
+		const full = (await sheetPdf(page.request, `${pdfPath}?appendix=1`)).join('\n');
+		const lanes = full.match(/^Lane \d+ (crop|pasture|cover|buffer) /gm)?.length ?? 0;
+		const passes = full.match(/^Pass \d+ from [AB] /gm)?.length ?? 0;
+		const plan = (await (await page.request.get(`/api/farms/${DEMO_FARM_ID}/fields/${field.id}/plans/${season}`)).json()) as { lanes: unknown[] };
+		expect(ticks, `${field.name} ${season}`).toBe(passes);
+		expect(passes, `${field.name} ${season}`).toBeGreaterThan(0);
+		expect(lanes, `${field.name} ${season}`).toBe(plan.lanes.length);
+		await page.goto(`${path}?appendix=1`);
+		await expect(page.getByTestId('sheet-appendix')).toContainText('Appendix: the full lists');
+		if (lanes > 24) await expect(page.getByTestId('sheet-lanes-all').locator('tbody tr')).toHaveCount(lanes);
+		if (passes > 24) await expect(page.getByTestId('sheet-passes-all').locator('li')).toHaveCount(passes);
+	}
+	const over = Object.entries(counts).filter(([, [p, d]]) => p > 2 || d > 2);
+	expect(over, JSON.stringify(counts)).toEqual([]);
+});
+
+test('a planter that does not suit its lanes gets a setup letter on each of its 139 passes', async ({ page }) => {
+	await apiSignIn(page.request, 'manager');
+	const fields = (await (await page.request.get(`/api/farms/${DEMO_FARM_ID}/fields`)).json()) as { id: string; name: string }[];
+	const creek = fields.find((f) => f.name === 'Creek Bend')!;
+	await page.goto(`/farms/${DEMO_FARM_ID}/fields/${creek.id}/plans/2027/sheet`);
+	const passes = page.getByTestId('sheet-passes').locator('li');
+	await expect(passes).toHaveCount(139);
+	await expect(passes.first()).toHaveText('1 A 1 a');
+	await expect(passes.first().getByRole('checkbox', { name: 'Pass 1 done' })).toBeVisible();
+	await expect(page.getByTestId('sheet-setups').locator('li').first()).toHaveText('a · 4 on: units 1, 3, 5 and 7 corn (hybrid A (105-day))');
+	expect((await printed(page)).length).toBeLessThanOrEqual(2);
+});
+
 test('the demo 63-lane sheet prints on two pages; "Print the full lists" adds every lane, pass and finding', async ({ page }) => {
 	await apiSignIn(page.request, 'manager');
 	await page.goto(`${NORTH_80}/plans/2027/sheet`);
