@@ -9,18 +9,21 @@ import { DATABASE_UNAVAILABLE_MESSAGE, frameworkRefusal, fromDatabaseInputError,
 import { refuseBadRequest } from '$lib/server/request-checks';
 import { geometryPool } from '$lib/server/geometry-pool';
 import { startMailRetries } from '$lib/server/mail';
+import { startChangeListener, stopChangeListener } from '$lib/server/change-listener';
 
 // A geometry thread loads its code at start-up, so the first layout or field save does not wait for it.
 export const init: ServerInit = () => {
 	geometryPool();
 	// Mail the relay refused earlier goes out once it is back.
 	startMailRetries();
+	// Sessions and plan stamps kept by this process are emptied by changes other processes commit.
+	startChangeListener();
 };
 
 // adapter-node emits this after a graceful stop; an idle pool would otherwise keep the process alive.
 process.on('sveltekit:shutdown', () => {
 	// Mail already promised to someone (sign-up, reset) goes out before the pool closes.
-	void backgroundSettled().finally(() => closeDb());
+	void backgroundSettled().finally(() => Promise.all([closeDb(), stopChangeListener()]));
 });
 
 const handleSession: Handle = async ({ event, resolve }) => {

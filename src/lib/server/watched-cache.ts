@@ -3,8 +3,9 @@
 // It watches every statement this process sends through Knex: an INSERT, UPDATE, DELETE or TRUNCATE
 // on a watched table empties it, and nothing is stored or answered from it until that statement's
 // transaction has been committed or rolled back, plus a short margin for the commit itself. A read
-// that began before such a statement is never stored. A change made by another process is only
-// seen when the entries lapse (ttlMs), so keep ttlMs short.
+// that began before such a statement is never stored. Changes committed by other processes arrive
+// as database notices (change-listener.ts) and empty it too; while the app's listener is not
+// connected, nothing is answered from any cache.
 import type { Knex } from 'knex';
 
 // After a change is sent (or its transaction's COMMIT), reads go to the database for this long.
@@ -40,6 +41,21 @@ interface Entry<T> {
 	storedAt: number;
 }
 
+/** Whether other processes' changes reach this one: 'off' until a listener starts (scripts, tests). */
+let crossProcess: 'off' | 'connected' | 'lost' = 'off';
+const registry = new Set<WatchedCache<unknown>>();
+
+/** The listener's state; 'lost' stops every cache from answering until it is 'connected' again. */
+export function setCrossProcess(state: 'connected' | 'lost' | 'off') {
+	crossProcess = state;
+	for (const cache of registry) cache.forgetAll();
+}
+
+/** Another process committed a change to `table`: empty every cache built from it. */
+export function changedElsewhere(table: string) {
+	for (const cache of registry) if (cache.tables.includes(table)) cache.forgetAll();
+}
+
 export class WatchedCache<T> {
 	protected readonly entries = new Map<string, Entry<T>>();
 	private readonly pending = new Map<string, number>();
@@ -53,6 +69,11 @@ export class WatchedCache<T> {
 		private readonly now: () => number = Date.now
 	) {
 		this.changes = changePattern(options.tables, options.inserts ?? true);
+		registry.add(this as WatchedCache<unknown>);
+	}
+
+	get tables(): readonly string[] {
+		return this.options.tables;
 	}
 
 	/** Starts watching the statements a Knex instance sends (once per instance). */
@@ -93,7 +114,7 @@ export class WatchedCache<T> {
 	private unsettled(): boolean {
 		const now = this.now();
 		for (const [tx, since] of this.pending) if (now - since > PENDING_LIMIT_MS) this.pending.delete(tx);
-		return this.pending.size > 0 || now < this.settledAt;
+		return crossProcess === 'lost' || this.pending.size > 0 || now < this.settledAt;
 	}
 
 	/** The value for `key`, read through `read` unless a fresh copy is at hand. Nulls are not kept. */
