@@ -42,3 +42,20 @@ test('on a phone: log a side-dress pass of UAN on all corn lanes in a few taps',
 	expect(r.products[0]).toMatchObject({ rate: 15, rateUnit: 'gal/ac', totalUnit: 'gal' });
 	expect(r.products[0].total).toBeCloseTo(15 * r.acres, 3);
 });
+
+test('on a phone: no lanes are chosen for you; a pass without a choice of lanes is refused and nothing is saved', async ({ page }) => {
+	const { farmId } = await ownFarm(page, 'quick-where');
+	const { boundary, guidance } = eightyAcres();
+	const fieldId = await ownField(page.request, farmId, 'Quick where', boundary);
+	await ownPlan(page.request, farmId, fieldId, SEASON, { guidance, pattern: [CORN_8, SOYBEAN_8], offsetFt: 0, headlandFt: 0 });
+
+	await page.goto(`/farms/${farmId}/fields/${fieldId}/seasons/${SEASON}/quick`);
+	await expect(page.getByLabel(/All corn lanes/)).not.toBeChecked();
+	await expect(page.getByLabel(/All soybean lanes/)).not.toBeChecked();
+	await page.getByLabel('Mowing').check();
+	await page.getByRole('button', { name: 'Save pass' }).tap();
+	await expect(page.getByText('Choose where: all lanes of one crop, or a list of lane numbers.')).toBeVisible();
+	await expect(page.getByTestId('quick-saved')).toHaveCount(0);
+	const list = await (await page.request.get(`/api/farms/${farmId}/fields/${fieldId}/seasons/${SEASON}/records`)).json();
+	expect(list.records).toEqual([]);
+});

@@ -60,7 +60,7 @@ export const actions: Actions = {
 			else laneIndexes = parsed.indexes;
 		} else {
 			laneIndexes = (plan?.lanes ?? []).filter((l) => l.crop === values.lanes).map((l) => l.index);
-			if (!laneIndexes.length) fields.laneIndexes = ['Pick the lanes.'];
+			if (!laneIndexes.length) fields.laneIndexes = ['Choose where: all lanes of one crop, or a list of lane numbers.'];
 		}
 		const minutesAgo = Number(values.finished ?? 0);
 		const tookMinutes = Number(values.took ?? 60);
