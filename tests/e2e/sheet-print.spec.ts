@@ -80,7 +80,7 @@ test('a planter that does not suit its lanes gets a setup letter on each of its 
 	await page.goto(`/farms/${DEMO_FARM_ID}/fields/${creek.id}/plans/2027/sheet`);
 	const passes = page.getByTestId('sheet-passes').locator('li');
 	await expect(passes).toHaveCount(139);
-	await expect(passes.first()).toHaveText('1 A 1 a');
+	await expect(passes.first()).toHaveText('Pass 1 A 1 a');
 	await expect(passes.first().getByRole('checkbox', { name: 'Pass 1 done' })).toBeVisible();
 	await expect(page.getByTestId('sheet-setups').locator('li').first()).toHaveText('a · 4 on: units 1, 3, 5 and 7 corn (hybrid A (105-day))');
 	expect((await printed(page)).length).toBeLessThanOrEqual(2);
