@@ -289,7 +289,7 @@ function drawLetteredPassGrid(w: SheetWriter, data: SheetData): void {
 		keys.map((key) => `${key.letter} · ${key.unitsOn} on: ${key.planting}`),
 		{ size: 9, bold: true }
 	);
-	drawTable(w, Array.from({ length: perRow }, () => group).flat(), rows, { title: 'Passes, in driving order', size, headerSize: 8, padY: 1, padX, noHeading: true, breakable: true });
+	drawTable(w, Array.from({ length: perRow }, () => group).flat(), rows, { title: 'Passes, in driving order', size, headerSize: 8, padY: 1, padX, noHeading: true, breakable: true, lineGap: 0 });
 }
 
 /** Short items in two columns, read down the left column and then the right. */

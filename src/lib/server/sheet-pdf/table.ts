@@ -26,6 +26,8 @@ export interface TableOptions {
 	noHeading?: boolean;
 	/** Let even a short table break after its first rows instead of moving whole to the next page. */
 	breakable?: boolean;
+	/** Space between wrapped lines of a cell (points); one-line cells of a dense grid need none. */
+	lineGap?: number;
 }
 
 type Cell = TableCell | string;
@@ -36,7 +38,7 @@ const asCell = (cell: Cell): TableCell => (typeof cell === 'string' ? { text: ce
 export function drawTable(w: SheetWriter, columns: TableColumn[], rows: Cell[][], options: TableOptions): void {
 	const padX = options.padX ?? 4;
 	const padY = options.padY ?? 3;
-	const bodyStyle: TextStyle = { size: options.size };
+	const bodyStyle: TextStyle = { size: options.size, lineGap: options.lineGap };
 	const headerStyle: TextStyle = { size: options.headerSize ?? Math.max(10, options.size - 1), bold: true };
 	const total = columns.reduce((sum, c) => sum + c.width, 0);
 	const scale = PAGE.contentWidth / total;
