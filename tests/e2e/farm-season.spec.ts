@@ -85,6 +85,23 @@ test('a farm with no fields shows an empty state on the season map', async ({ pa
 
 test.describe('at phone width', () => {
 	test.use({ viewport: { width: 375, height: 812 } });
+	test('field labels stay inside the map, long names included', async ({ page }) => {
+		const { farmId } = await ownFarm(page, 'phone-labels');
+		await ownField(page.request, farmId, 'West field along the creek bottom', WEST.boundary);
+		await ownField(page.request, farmId, 'East field by the county road', EAST.boundary);
+		await page.goto(`/farms/${farmId}`);
+		const map = page.getByTestId('season-map');
+		const labels = page.locator('.farm-field-label');
+		await expect(labels).toHaveCount(2);
+		const box = (await map.boundingBox())!;
+		for (const label of await labels.all()) {
+			await expect(label).toBeVisible();
+			const b = (await label.boundingBox())!;
+			expect(b.x, await label.innerText()).toBeGreaterThanOrEqual(box.x);
+			expect(b.x + b.width, await label.innerText()).toBeLessThanOrEqual(box.x + box.width);
+		}
+	});
+
 	test('the season map, planning board and needs pages have no serious accessibility problems and 44-px steps', async ({ page }) => {
 		test.setTimeout(180_000);
 		const { farmId } = await ownFarm(page, 'phone-map');
