@@ -36,7 +36,11 @@ async function sheetPdf(request: APIRequestContext, path: string): Promise<strin
 test('every demo field and season with an adopted plan prints on two pages, page and PDF; the full lists keep every lane and pass', async ({ page }) => {
 	test.setTimeout(240_000);
 	await apiSignIn(page.request, 'manager');
-	const fields = (await (await page.request.get(`/api/farms/${DEMO_FARM_ID}/fields`)).json()) as { id: string; name: string }[];
+	// The seeded fields only: other tests may add fields of their own to the demo farm.
+	const seeded = ['5a1e0000-0000-4000-8000-0000000001f1', '5a1e0000-0000-4000-8000-0000000001f2', '5a1e0000-0000-4000-8000-0000000001f3'];
+	const all = (await (await page.request.get(`/api/farms/${DEMO_FARM_ID}/fields`)).json()) as { id: string; name: string }[];
+	const fields = all.filter((f) => seeded.includes(f.id));
+	expect(fields).toHaveLength(3);
 	const sheets: { field: { id: string; name: string }; season: number }[] = [];
 	for (const field of fields) {
 		const plans = (await (await page.request.get(`/api/farms/${DEMO_FARM_ID}/fields/${field.id}/plans`)).json()) as { season: number; adopted: boolean }[];
