@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 
-// Each app process keeps sessions and plan stamps for a few seconds. A change committed by any
+// Each app process keeps sessions, memberships and plan stamps for a few seconds. A change committed by any
 // process (another app server, a script, psql) is announced on one channel with the table's name,
 // so every process empties what it kept from that table at once instead of when it lapses.
 // A new session cannot change one already kept, so sign-ins announce nothing.
@@ -10,7 +10,8 @@ const WATCHED: [table: string, events: string][] = [
 	['plans', 'insert or update or delete'],
 	['plan_lanes', 'insert or update or delete'],
 	['fields', 'insert or update or delete'],
-	['farms', 'insert or update or delete']
+	['farms', 'insert or update or delete'],
+	['memberships', 'insert or update or delete']
 ];
 
 export async function up(knex: Knex) {

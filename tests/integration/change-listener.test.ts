@@ -7,7 +7,8 @@ import { lucia } from '$lib/server/auth';
 import { db } from '$lib/server/db';
 import { listening, startChangeListener, stopChangeListener } from '$lib/server/change-listener';
 import { TTL_MS } from '$lib/server/session-cache';
-import { makeUser } from './helpers';
+import { requireMember } from '$lib/server/access';
+import { fakeEvent, makeFarmWithTeam, makeUser, thrown } from './helpers';
 
 let sql: string[] = [];
 const onQuery = (q: { sql: string }) => sql.push(q.sql);
@@ -84,5 +85,25 @@ describe('changes committed by another process', () => {
 		expect(down.queries).toBeGreaterThan(0);
 		expect(await until(listening, 5000)).toBe(true);
 		await cached(session.id);
+	});
+
+	it('a member demoted or removed is refused on the next read, by this process or another', async () => {
+		const { farm, members } = await makeFarmWithTeam();
+		const read = async (capability: 'read' | 'editPlans') => {
+			sql = [];
+			const access = await requireMember(fakeEvent(members.manager) as never, farm.id, capability);
+			return { role: access.role, queries: sql.length };
+		};
+		// Kept: a repeat read sends no query.
+		expect(await until(async () => (await read('editPlans')).queries === 0, 8000)).toBe(true);
+		// Another process makes the manager a viewer: refused within moments, long before 5 s.
+		const changedAt = Date.now();
+		await elsewhere(`update memberships set role = 'viewer' where farm_id = $1 and user_id = $2`, [farm.id, members.manager.id]);
+		expect(await until(async () => (await thrown(() => read('editPlans'))).status === 403, 3000)).toBe(true);
+		expect(Date.now() - changedAt).toBeLessThan(2500);
+		// This process removes the member: the very next read answers 404.
+		expect(await until(async () => (await read('read')).queries === 0, 8000)).toBe(true);
+		await db()('memberships').where({ farm_id: farm.id, user_id: members.manager.id }).delete();
+		expect((await thrown(() => read('read'))).status).toBe(404);
 	});
 });

@@ -4,6 +4,7 @@ import { db } from './db';
 import { can, CAPABILITY_LABELS, ROLE_LABELS, type Capability, type Role } from '../permissions';
 import type { SessionUser } from './auth';
 import { notFound } from './errors';
+import { WatchedCache } from './watched-cache';
 
 export interface FarmAccess {
 	user: SessionUser;
@@ -52,15 +53,27 @@ interface MembershipRow {
 	field_scope: string[] | null;
 }
 
+// Reads keep a membership for a few seconds, so a burst of requests does not read it each time. Any
+// change to memberships or farms, by this process or another (watched-cache.ts), empties it at once;
+// a member removed or demoted is refused on the very next request.
+const kept = new WatchedCache<MembershipRow>({ tables: ['memberships', 'farms'], ttlMs: 5_000, limit: 10_000 });
+
 function membershipRow(event: Event, farmId: string, userId: string): Promise<MembershipRow | undefined> {
 	// A Knex builder runs again on every await: settle it into one promise that can be shared.
-	const read = (): Promise<MembershipRow | undefined> =>
+	const fromDb = (): Promise<MembershipRow | undefined> =>
 		Promise.resolve(db()('memberships as m')
 			.join('farms as f', 'f.id', 'm.farm_id')
 			.where({ 'm.farm_id': farmId, 'm.user_id': userId })
 			.whereNull('f.deleted_at')
 			.first('f.id', 'f.name', 'f.units', 'f.time_zone', 'f.viewers_see_member_emails', 'f.viewers_see_equipment', 'm.role', 'm.field_scope'));
-	if (event.request.method !== 'GET') return read();
+	// Writes always read it afresh: an action may change it.
+	if (event.request.method !== 'GET') return fromDb();
+	kept.watch(db());
+	const read = async () => {
+		const row = await kept.get(`${userId}:${farmId}`, async () => (await fromDb()) ?? null);
+		// Each request gets its own copy: nothing one request does to it reaches the next.
+		return row ? { ...row, field_scope: row.field_scope ? [...row.field_scope] : null } : undefined;
+	};
 	let reads = readsOfRequest.get(event.locals);
 	if (!reads) readsOfRequest.set(event.locals, (reads = new Map()));
 	const key = `${userId}:${farmId}`;
