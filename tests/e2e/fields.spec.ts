@@ -15,7 +15,13 @@ test('draw a field by clicking corners on the map, see its acres, save it', asyn
 	const map = page.getByRole('region', { name: 'Boundary drawing map' });
 	await expect(map.locator('.leaflet-map-pane')).toHaveCount(1);
 	// From the overview of the region down to field scale (zoom 6 → 15).
-	for (let i = 0; i < 9; i++) await map.getByRole('button', { name: 'Zoom in' }).click();
+	// Each step waits for the zoom animation to end: a click during one is taken from the old zoom.
+	for (let i = 0; i < 9; i++) {
+		await map.getByRole('button', { name: 'Zoom in' }).click();
+		await expect(map.locator('.leaflet-zoom-anim')).toHaveCount(0);
+	}
+	// Field scale: the scale bar reads in feet, not miles.
+	await expect(map.locator('.leaflet-control-scale-line').last()).toHaveText(/^\d+ ft$/);
 	await page.getByRole('button', { name: 'Draw boundary' }).click();
 	const box = (await map.boundingBox())!;
 	const corners: [number, number][] = [[0.15, 0.15], [0.35, 0.15], [0.35, 0.4], [0.15, 0.4]];
