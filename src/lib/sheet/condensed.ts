@@ -162,19 +162,10 @@ export function usualSetup(passes: readonly Pick<SheetPass, 'summary'>[]): strin
 	return best && best[1] >= 2 ? best[0] : null;
 }
 
-export interface LaneGroup {
+/** A lane's setup with its lanes' numbers; `acres` is of all the lanes together. */
+export interface LaneGroup extends Omit<SheetLane, 'index' | 'geometry'> {
 	/** 1-based lane numbers. */
 	laneNumbers: number[];
-	kind: SheetLane['kind'];
-	crop: string;
-	widthFt: number;
-	rows: number;
-	rowSpacingIn: number | null;
-	/** Acres of all the lanes together. */
-	acres: number;
-	variety: string | null;
-	populationPerAcre: number | null;
-	trialLabel: string | null;
 }
 
 /** Lanes set up alike (kind, crop, width, rows, variety, population, trial) in one row, in lane order. */
