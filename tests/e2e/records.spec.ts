@@ -108,3 +108,38 @@ test('the farm record book lists the field\'s season and links to it', async ({ 
 	await expect(page.getByRole('heading', { level: 1 })).toHaveText(`Hub field · ${SEASON} season`);
 	await expect(page.getByRole('link', { name: 'Products' }).or(page.getByRole('link', { name: 'Download CSV' })).first()).toBeVisible();
 });
+
+test('a planting record is filled from the seeding sheet in one step: type, lanes, variety and population', async ({ page }) => {
+	const { farmId } = await ownFarm(page, 'records-from-sheet');
+	const { boundary, guidance } = eightyAcres();
+	const fieldId = await ownField(page.request, farmId, 'Sheet fill 80', boundary);
+	const first = await ownPlan(page.request, farmId, fieldId, SEASON, { guidance, pattern: [CORN_8, SOYBEAN_8], offsetFt: 0, headlandFt: 0 });
+	const corn: number[] = first.lanes.filter((l: { crop: string }) => l.crop === 'corn').map((l: { index: number }) => l.index);
+	const put = await page.request.put(`/api/farms/${farmId}/fields/${fieldId}/plans/${SEASON}`, {
+		data: { guidance, pattern: [CORN_8, SOYBEAN_8], offsetFt: 0, headlandFt: 0, version: first.version, assignments: corn.map((laneIndex) => ({ laneIndex, variety: 'test hybrid 104', populationPerAcre: 34_000 })) }
+	});
+	expect(put.status(), await put.text()).toBe(200);
+	const base = `/farms/${farmId}/fields/${fieldId}/seasons/${SEASON}`;
+	// Lane numbers as the form writes them: runs of consecutive lanes joined with a hyphen.
+	const numbers = corn.map((i) => i + 1);
+
+	await page.goto(`${base}/records/new`);
+	await page.getByRole('button', { name: `corn: test hybrid 104, 34,000 seeds/ac (${corn.length} lanes)` }).click();
+	await expect(page.getByLabel('Type of work')).toHaveValue('planting');
+	await expect(page.getByLabel('Variety')).toHaveValue('test hybrid 104');
+	await expect(page.getByLabel('Population (seeds/ac)')).toHaveValue('34000');
+	await expect(page.getByLabel('Lane numbers')).toHaveValue(numbers.join(', '));
+
+	const chicago = (d: Date) => new Intl.DateTimeFormat('sv-SE', { timeZone: 'America/Chicago', year: 'numeric', month: '2-digit', day: '2-digit', hour: '2-digit', minute: '2-digit' }).format(d).replace(' ', 'T');
+	const hourAgo = new Date(Date.now() - 3_600_000);
+	await page.getByLabel('Started (farm time)').fill(chicago(new Date(hourAgo.getTime() - 3_600_000)));
+	await page.getByLabel('Ended (farm time)').fill(chicago(hourAgo));
+	await page.getByRole('button', { name: 'Save record' }).click();
+	await expect(page.getByRole('status').filter({ hasText: 'Record saved.' })).toBeVisible();
+
+	const { records } = await (await page.request.get(`/api/${base.slice(1)}/records`)).json();
+	expect(records).toHaveLength(1);
+	expect(records[0].type).toBe('planting');
+	expect(records[0].laneIndexes).toEqual(corn);
+	expect(records[0].details).toMatchObject({ variety: 'test hybrid 104', populationPerAcre: 34_000 });
+});
