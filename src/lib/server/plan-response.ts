@@ -1,6 +1,7 @@
 // Answers for reads of a saved plan. One light query reads the plan's stamp (id, version, last
-// change, adopted; kept a few seconds, until the next write); the ETag comes from it, so a client holding this version gets 304 and a body
-// already serialized for it is sent again without reading the lanes. Every save makes a new version
+// change, adopted; kept a few seconds, until the next write); the ETag comes from it, so a client
+// holding this version gets 304 and a body already serialized for it is sent again without reading
+// the lanes. Every save makes a new version
 // and adopting touches updated_at, so a stamp never names two different bodies. Access is checked
 // before any of this runs, on every request, and the stamp is read through getPlan's own query, so it
 // follows the same farm, field-scope and deleted-row rules.
@@ -25,8 +26,8 @@ const FORMAT = 1;
 const bodies = versionedMemo<Uint8Array<ArrayBuffer>>(64);
 const utf8 = new TextEncoder();
 
-// Stamps of the last few seconds, per farm, field, season and variant. Any write to plans, fields or
-// farms from this process empties them (see watched-cache.ts); they are looked up only after the
+// Stamps of the last few seconds, per farm, field, season and variant. Any write to plans, plan
+// lanes, fields or farms, from this process or another, empties them (see watched-cache.ts); they are looked up only after the
 // access check and seasonPlanQuery's field-scope rule have passed for this member.
 const stamps = new WatchedCache<PlanStamp>({ tables: ['plans', 'plan_lanes', 'fields', 'farms'], ttlMs: 5_000, limit: 5_000 });
 

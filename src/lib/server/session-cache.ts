@@ -3,8 +3,8 @@
 //
 // A session that ends must stop working at once, whichever code ends it (sign-out, a password change
 // or reset, removing a user, a manual delete): any DELETE, UPDATE or TRUNCATE on sessions or users
-// empties the cache and holds it back until that transaction ends (see watched-cache.ts). Another
-// process writing to the database directly is only seen when the entries lapse (TTL_MS).
+// empties the cache and holds it back until that transaction ends (see watched-cache.ts); a change
+// another process commits empties it when the database's notice arrives (change-listener.ts).
 import { WatchedCache } from './watched-cache';
 
 export const TTL_MS = 10_000;
