@@ -1,8 +1,8 @@
 // Answers for reads of a saved plan. One light query reads the plan's stamp (id, version, last
 // change, adopted; kept a few seconds, until the next write); the ETag comes from it, so a client
 // holding this version gets 304 and a body already serialized for it is sent again without reading
-// the lanes. Every save makes a new version
-// and adopting touches updated_at, so a stamp never names two different bodies. Access is checked
+// the lanes. Every save makes a new version and adopting touches updated_at, so a stamp never names
+// two different bodies. Access is checked
 // before any of this runs, on every request, and the stamp is read through getPlan's own query, so it
 // follows the same farm, field-scope and deleted-row rules.
 import { createHash } from 'node:crypto';
